@@ -68,6 +68,9 @@ public static partial class EngineeringValue
         return integer + marker.Letter + fraction;
     }
 
+    /// <summary>The unit symbol written for a quantity: Ω F H V A Hz W s, and "" for a ratio.</summary>
+    public static string UnitSymbol(Quantity quantity) => QuantityUnit.Of(quantity).Symbol;
+
     private static (string Letter, int Exponent)[] RkmMarkers(Quantity quantity) => quantity switch
     {
         Quantity.Resistance => [("R", 0), ("K", 3), ("M", 6), ("G", 9), ("T", 12)],
