@@ -49,6 +49,7 @@ internal static class CornerSearch
             .ToArray();
         var tracker = new ExtremeTracker(model.Figures.Count, nominal.Length);
         var ends = new ToleranceEnd[nominal.Length];
+        Array.Fill(ends, ToleranceEnd.Nominal);
         var x = new double[nominal.Length];
         var y = new double[model.Figures.Count];
 

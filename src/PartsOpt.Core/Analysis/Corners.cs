@@ -13,11 +13,11 @@ public enum CornerMethod
 /// <summary>Where a parameter sits in its band at a corner.</summary>
 public enum ToleranceEnd
 {
-    /// <summary>At nominal·(1 − minus tolerance).</summary>
-    Minus,
-
     /// <summary>At nominal (the parameter does not vary, or does not move the figure).</summary>
     Nominal,
+
+    /// <summary>At nominal·(1 − minus tolerance).</summary>
+    Minus,
 
     /// <summary>At nominal·(1 + plus tolerance).</summary>
     Plus,
