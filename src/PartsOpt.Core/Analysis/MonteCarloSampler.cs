@@ -59,7 +59,7 @@ internal sealed class MonteCarloSampler
         _bandMax = bandMax;
     }
 
-    /// <summary>Samples [first, first + count) of the run with the stream of this chunk.</summary>
+    /// <summary>Draws <paramref name="count"/> boards from the stream seeded with <paramref name="chunkSeed"/>.</summary>
     public ChunkSummary Run(int chunkSeed, int count)
     {
         var random = new Xoshiro256StarStar(chunkSeed, threadSafe: false);
