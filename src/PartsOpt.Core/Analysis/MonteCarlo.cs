@@ -36,6 +36,7 @@ public static class MonteCarlo
     /// <param name="parallelOptions">Degree of parallelism and cancellation; null for the defaults.</param>
     /// <exception cref="ArgumentOutOfRangeException">An argument out of range; the message names it.</exception>
     /// <exception cref="ArgumentException">A malformed model parameter or band.</exception>
+    /// <exception cref="OperationCanceledException">The token in <paramref name="parallelOptions"/> was cancelled.</exception>
     public static MonteCarloResult Analyse(IFigureModel model, int samples, int seed,
         IReadOnlyList<FigureBand>? bands = null, TemperatureRange? temperature = null,
         ParallelOptions? parallelOptions = null)
