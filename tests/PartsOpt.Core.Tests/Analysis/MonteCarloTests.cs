@@ -85,6 +85,19 @@ public class MonteCarloTests
     }
 
     [Fact]
+    public void A_normal_part_with_an_asymmetric_band_is_centred_on_the_band()
+    {
+        // −0/+6 %: band [1, 1.06], centre 1.03, σ = 1 % before truncation at ±3σ (factor 0.98658, as above).
+        var model = FormulaModel.Scalar(x => x[0], new ParameterSpec("a", 1, 0, 0.06, SpreadDistribution.Normal));
+        var figure = MonteCarlo.Analyse(model, 100_000, seed: 12).Figures[0];
+
+        Precision.AlmostEqualRelative(1.03, figure.Mean!.Value, 1e-4, "mean");
+        Precision.AlmostEqualRelative(0.0098658, figure.StandardDeviation!.Value, 0.01, "σ");
+        Assert.InRange(figure.Min!.Value, 1, 1.06);
+        Assert.InRange(figure.Max!.Value, 1, 1.06);
+    }
+
+    [Fact]
     public void An_asymmetric_band_is_sampled_as_it_stands()
     {
         // Z: +80/−20 % (IEC 60062), uniform over [0.8, 1.8]: mean 1.3, σ = 0.5/√3.

@@ -48,6 +48,17 @@ public class RootSumSquareTests
     }
 
     [Fact]
+    public void The_mean_offset_follows_the_sign_of_the_sensitivity()
+    {
+        // y = 1/c, S = −1 (calculus): the +30 % offset of a +80/−20 % part moves the centre by −30 % to
+        // first order.
+        var model = FormulaModel.Scalar(x => 1 / x[0], new ParameterSpec("c", 2, 0.20, 0.80));
+        var figure = RootSumSquare.Analyse(model).Figures[0];
+
+        Precision.AlmostEqualRelative(0.5 * (1 - 0.30), figure.Centre!.Value, 1e-8, "centre");
+    }
+
+    [Fact]
     public void A_figure_centred_on_zero_still_gets_a_band()
     {
         // Divider midpoint between ±10 V with equal 1 % resistors: Vth = −10 + 20·Rb/(Ra+Rb) = 0 V
