@@ -17,7 +17,7 @@ internal sealed class FormulaModel(IReadOnlyList<ParameterSpec> parameters, IRea
     public static FormulaModel Scalar(Func<double[], double> f, params ParameterSpec[] parameters) =>
         new(parameters, [new FigureSpec("y", "1")], (x, y) => y[0] = f(x.ToArray()));
 
-    /// <summary>y = a·b/c with the given tolerances (uniform), nominal 1 each.</summary>
+    /// <summary>y = a·b/c with the given tolerances (uniform); a = 2, b = 3, c = 4.</summary>
     public static FormulaModel ProductRatio(double ta, double tb, double tc) =>
         new([ParameterSpec.Symmetric("a", 2, ta), ParameterSpec.Symmetric("b", 3, tb), ParameterSpec.Symmetric("c", 4, tc)],
             [new FigureSpec("y", "1")], (x, y) => y[0] = x[0] * x[1] / x[2]);
