@@ -98,6 +98,8 @@ public static class TransientSimulator
         private readonly double[] stage = new double[CircuitDynamics.StateSize];
         private readonly double[][] k = [new double[4], new double[4], new double[4], new double[4]];
         private readonly double[] guards = new double[CircuitDynamics.GuardCount];
+        private readonly double[] probe = new double[CircuitDynamics.GuardCount];
+        private readonly double[] scratch = new double[CircuitDynamics.StateSize];
 
         public Trace Trace { get; } = new((dynamics.OscHigh + dynamics.OscLow) / 2);
         public double Time { get; private set; }
@@ -141,7 +143,7 @@ public static class TransientSimulator
                 dynamics.Guards(x, guards);
                 var due = Array.FindIndex(guards, g => g < 0);
                 if (due < 0) break;
-                if (!any) { any = true; }
+                any = true;
                 dynamics.Apply(due, x);
                 if (++Events > options.MaxEvents) return false;
             }
@@ -171,8 +173,6 @@ public static class TransientSimulator
         /// </summary>
         private double Crossing(int guard, double step, double atStep)
         {
-            var probe = new double[CircuitDynamics.GuardCount];
-            var scratch = new double[CircuitDynamics.StateSize];
             dynamics.Guards(x, probe);
             double a = 0, ga = Math.Max(probe[guard], 0), b = step, gb = atStep;
             var tolerance = RootTolerance * step;
