@@ -129,6 +129,25 @@ internal sealed class CircuitDynamics
         g[IntBottom] = IntHeld switch { 0 => x[Int] - IntLow, -1 => -slope, _ => double.PositiveInfinity };
     }
 
+    /// <summary>
+    /// True when no switch can happen again: both open-loop outputs held, the continuous states so near rest
+    /// that all their remaining drift is below <paramref name="tolerance"/> (V), and both flips further than
+    /// that from happening. With the modes fixed, each continuous state decays towards its resting value
+    /// (|slope|·τ bounds what is left), or, for an integrator without shunt, moves at a constant slope, which
+    /// is bounded over <paramref name="horizon"/> (s).
+    /// </summary>
+    public bool IsQuiescent(ReadOnlySpan<double> x, Span<double> dx, Span<double> g, double horizon, double tolerance)
+    {
+        if (!OscHeld || !CmpHeld) return false;
+        Derivative(x, dx);
+        var drift = hasCapacitor ? Math.Abs(dx[Cap]) / rcInverse : 0;
+        if (hasIntegrator && IntHeld == 0)
+            drift = Math.Max(drift, Math.Abs(dx[Int]) * (rfCiInverse > 0 ? 1 / rfCiInverse : horizon));
+        if (!(drift < tolerance)) return false;
+        Guards(x, g);
+        return g[OscFlip] > tolerance && g[CmpFlip] > tolerance;
+    }
+
     /// <summary>Carries out the switching action of guard <paramref name="guard"/>, which has just crossed zero.</summary>
     public void Apply(int guard, Span<double> x)
     {

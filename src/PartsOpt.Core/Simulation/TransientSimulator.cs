@@ -20,6 +20,8 @@ public static class TransientSimulator
     private const double RootTolerance = 1e-9; // of the step
     private const int RootIterations = 200;
     private const double StepsPerTimeConstant = 50;
+    private const double RestTolerance = 1e-9; // of the supply span
+    private const int RestCheckInterval = 16; // steps
 
     /// <summary>
     /// Simulates <paramref name="circuit"/> from power-up until it has settled for
@@ -39,9 +41,10 @@ public static class TransientSimulator
         options.Validate();
         var dynamics = new CircuitDynamics(circuit);
         var estimate = EstimatedPeriod(circuit);
-        var maxStep = options.MaxStep ?? Math.Min(estimate / options.StepsPerPeriod, ShortestTimeConstant(circuit) / StepsPerTimeConstant);
+        var maxStep = options.MaxStep ?? DefaultMaxStep(circuit, estimate, options.StepsPerPeriod);
+        var restTolerance = RestTolerance * (circuit.SupplyPositive - circuit.SupplyNegative);
         var run = new EventRun(dynamics, maxStep, options);
-        var (outcome, reason) = run.Execute(options.SilencePeriods * estimate);
+        var (outcome, reason) = run.Execute(options.SilencePeriods * estimate, restTolerance);
 
         var trace = run.Trace;
         var figures = outcome == SimulationOutcome.Measured
@@ -82,6 +85,20 @@ public static class TransientSimulator
         return 2 * circuit.OscR * circuit.OscC * Math.Log((1 + beta) / (1 - beta)) + slewing;
     }
 
+    /// <summary>
+    /// The period step (estimate / steps per period), further limited to resolve each exponential with 50
+    /// steps per time constant, except that a time constant far shorter than the period may not drive the
+    /// step below a tenth of the period step: such a stage only settles quickly, and Runge–Kutta follows it
+    /// stably (it is stable up to about 2.8 τ; the step stays at or below 2 τ) and tracks its resting value exactly.
+    /// </summary>
+    internal static double DefaultMaxStep(SimulatedCircuit circuit, double estimate, int stepsPerPeriod)
+    {
+        var periodStep = estimate / stepsPerPeriod;
+        var tau = ShortestTimeConstant(circuit);
+        var resolving = Math.Max(tau / StepsPerTimeConstant, Math.Min(periodStep / 10, 2 * tau));
+        return Math.Min(periodStep, resolving);
+    }
+
     private static double ShortestTimeConstant(SimulatedCircuit circuit)
     {
         var shortest = double.PositiveInfinity;
@@ -106,7 +123,7 @@ public static class TransientSimulator
         public int Steps { get; private set; }
         public int Events { get; private set; }
 
-        public (SimulationOutcome, string?) Execute(double silenceLimit)
+        public (SimulationOutcome, string?) Execute(double silenceLimit, double restTolerance)
         {
             dynamics.Initialise(x);
             Trace.Add(0, x);
@@ -121,6 +138,8 @@ public static class TransientSimulator
                 var lastEdge = Trace.RisingEdges.Count > 0 ? Trace.RisingEdges[^1] : 0;
                 if (Time - lastEdge > silenceLimit)
                     return (SimulationOutcome.DoesNotOscillate, SilenceReason(lastEdge));
+                if (Steps % RestCheckInterval == 0 && dynamics.IsQuiescent(x, stage, probe, silenceLimit, restTolerance))
+                    return (SimulationOutcome.DoesNotOscillate, RestReason());
                 if (Steps >= options.MaxSteps)
                     return (SimulationOutcome.WorkLimitReached,
                         $"{options.MaxSteps} steps taken by t = {Time:G6} s before the measurement finished (MaxSteps)");
@@ -128,10 +147,14 @@ public static class TransientSimulator
             }
         }
 
+        private string RestReason() =>
+            $"the circuit came to rest at t = {Time:G4} s with the oscillator output held at {x[CircuitDynamics.Osc]:G4} V "
+            + "and no switching threshold within reach (e.g. outside the output swing or beyond the integrator's limits)";
+
         private string SilenceReason(double lastEdge) =>
             $"the oscillator output has not risen through mid-level for {Time - lastEdge:G4} s "
             + $"({options.SilencePeriods:G4} estimated periods) and sits at {x[CircuitDynamics.Osc]:G4} V: "
-            + (Trace.RisingEdges.Count == 0 ? "it never switched" : "it stopped switching")
+            + (Trace.RisingEdges.Count == 0 ? "it never completed a cycle" : "it stopped switching")
             + " (a switching threshold the circuit cannot reach, e.g. outside the output swing or beyond the integrator's limits)";
 
         /// <summary>Makes every switch whose function is below zero; false when the event cap is passed.</summary>

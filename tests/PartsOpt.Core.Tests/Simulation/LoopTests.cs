@@ -17,8 +17,22 @@ public class LoopTests
         Precision.AlmostEqualAbsolute(0, figures.TriangleCentre, 0.01 * 6, "triangle centre");
         // The loop is all straight lines, so the simulation should be essentially exact.
         Precision.AlmostEqualRelative(5000, figures.Frequency, 1e-6, "frequency, tight");
+        Assert.True(result.Oscillates);
         Assert.Null(result.Capacitor);
         Assert.Equal("schmitt", result.Oscillator.Name);
+    }
+
+    [Fact]
+    public void SwitchingInstantsDoNotDependOnTheStep()
+    {
+        // A step of a seventh of the period: every switch still lands on its exact instant, because the
+        // crossing is located inside the step rather than taken at the step's end. Sedra & Smith, as above.
+        var figures = TestCircuits.Figures(TransientSimulator.Run(TestCircuits.Loop(threshold: 2),
+            new SimulationOptions { MaxStep = 200e-6 / 7 }));
+
+        Precision.AlmostEqualRelative(5000, figures.Frequency, 1e-6, "frequency");
+        // D = (Vp − Vth)/(2·Vp) (REFERENCE.md, comparator and duty).
+        Precision.AlmostEqualAbsolute((6 - 2) / 12.0, figures.DutyCycle, 1e-6, "duty");
     }
 
     [Fact]
