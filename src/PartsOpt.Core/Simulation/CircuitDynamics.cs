@@ -1,28 +1,47 @@
+using MathNet.Numerics;
+
 namespace PartsOpt.Simulation;
 
+/// <summary>How the integrator's output is moving.</summary>
+internal enum IntegratorMode
+{
+    /// <summary>Ideal op-amp in its linear region: the exact lossy-integrator solution.</summary>
+    Linear,
+    /// <summary>The ideal slope would exceed +SR: the output rises at the slew rate.</summary>
+    SlewingUp,
+    /// <summary>The ideal slope would exceed −SR: the output falls at the slew rate.</summary>
+    SlewingDown,
+    /// <summary>Saturated at the high limit.</summary>
+    HeldHigh,
+    /// <summary>Saturated at the low limit.</summary>
+    HeldLow,
+}
+
 /// <summary>
-/// The right-hand side, switching functions and switching actions of one circuit: a hybrid system of
-/// four continuous states and a few discrete modes. The run loop in <see cref="TransientSimulator"/>
-/// integrates it between events and calls <see cref="Apply"/> at each one.
+/// One circuit as a hybrid system: four voltages, a few discrete modes, the exact solution of the voltages
+/// while the modes hold (<see cref="Advance"/>), the switching functions (<see cref="Guards"/>) and the
+/// switching actions (<see cref="Apply"/>).
 /// </summary>
 /// <remarks>
-/// Continuous states: the oscillator (or Schmitt) output, the oscillator capacitor, the integrator output,
-/// the comparator output. A saturating section (oscillator, Schmitt, comparator) is either slewing at ±SR
+/// Voltages: the oscillator (or Schmitt) output, the oscillator capacitor, the integrator output, the
+/// comparator output. An open-loop section (oscillator, Schmitt, comparator) is either slewing at ±SR
 /// towards the limit its inputs call for, or held at that limit; it leaves the hold only when its inputs
-/// flip it. The integrator is free (ideal op-amp, slope clipped to ±SR) or held at a limit; it leaves the
-/// hold at once when its unlimited slope points back into the range, i.e. recovery from saturation is
-/// instantaneous (real op-amps may lag there: not modelled).
-/// Every switching function is positive while nothing happens; an event is its crossing below zero.
+/// flip it. The integrator is linear (ideal op-amp, virtual ground at the reference), slewing at ±SR while
+/// the ideal slope would be steeper, or held at a limit; it leaves a hold at once when its ideal slope
+/// points back into the range, i.e. recovery from saturation is instantaneous (real op-amps may lag there:
+/// not modelled). Every switching function is positive while nothing happens; an event is its crossing
+/// below zero.
 /// </remarks>
 internal sealed class CircuitDynamics
 {
-    public const int Osc = 0, Cap = 1, Int = 2, Cmp = 3, StateSize = 4, GuardCount = 6;
+    public const int Osc = 0, Cap = 1, Int = 2, Cmp = 3, StateSize = 4, GuardCount = 8;
 
-    private const int OscFlip = 0, OscArrive = 1, CmpFlip = 2, CmpArrive = 3, IntTop = 4, IntBottom = 5;
+    private const int OscFlip = 0, OscArrive = 1, CmpFlip = 2, CmpArrive = 3;
+    private const int IntTop = 4, IntBottom = 5, IntFastUp = 6, IntFastDown = 7;
 
     private readonly SimulatedTopology topology;
-    private readonly double vref, threshold, beta, rcInverse;
-    private readonly double riCiInverse, rfCiInverse, schR1, schR2;
+    private readonly double vref, threshold, beta, rc;
+    private readonly double riCi, tauShunt, shuntGain, schR1, schR2;
     private readonly bool hasCapacitor, hasIntegrator;
 
     public CircuitDynamics(SimulatedCircuit circuit)
@@ -35,12 +54,13 @@ internal sealed class CircuitDynamics
         if (hasCapacitor)
         {
             beta = circuit.OscR2 / (circuit.OscR1 + circuit.OscR2);
-            rcInverse = 1 / (circuit.OscR * circuit.OscC);
+            rc = circuit.OscR * circuit.OscC;
         }
         if (hasIntegrator)
         {
-            riCiInverse = 1 / (circuit.IntR * circuit.IntC);
-            rfCiInverse = double.IsPositiveInfinity(circuit.IntRf) ? 0 : 1 / (circuit.IntRf * circuit.IntC);
+            riCi = circuit.IntR * circuit.IntC;
+            tauShunt = circuit.IntRf * circuit.IntC; // +∞ without a shunt
+            shuntGain = circuit.IntRf / circuit.IntR;
             IntHigh = circuit.HighLimit(circuit.Integrator);
             IntLow = circuit.LowLimit(circuit.Integrator);
             IntSlew = circuit.Integrator.SlewRate;
@@ -72,10 +92,10 @@ internal sealed class CircuitDynamics
     public bool OscHeld { get; private set; }
     public bool CmpTargetHigh { get; private set; }
     public bool CmpHeld { get; private set; }
-    public int IntHeld { get; private set; } // 0 free, +1 at the top limit, −1 at the bottom limit
+    public IntegratorMode IntMode { get; private set; }
 
     /// <summary>Power-up: capacitors at the reference, the oscillator at its high limit, the comparator at
-    /// whichever limit its inputs call for.</summary>
+    /// whichever limit its inputs call for. Switching functions already below zero fire at t = 0.</summary>
     public void Initialise(Span<double> x)
     {
         x[Osc] = OscHigh;
@@ -83,7 +103,7 @@ internal sealed class CircuitDynamics
         x[Int] = hasIntegrator ? vref : 0;
         OscTargetHigh = true;
         OscHeld = true;
-        IntHeld = 0;
+        IntMode = IntegratorMode.Linear;
         CmpTargetHigh = ComparatorInput(x) >= 0;
         CmpHeld = true;
         x[Cmp] = CmpTargetHigh ? CmpHigh : CmpLow;
@@ -92,17 +112,52 @@ internal sealed class CircuitDynamics
     /// <summary>The voltage on the comparator's non-inverting input: the triangle or the capacitor ramp.</summary>
     public double Ramp(ReadOnlySpan<double> x) => hasIntegrator ? x[Int] : x[Cap];
 
-    public void Derivative(ReadOnlySpan<double> x, Span<double> dx)
+    private double OscSlope => OscHeld ? 0 : OscTargetHigh ? OscSlew : -OscSlew;
+
+    private double CmpSlope => CmpHeld ? 0 : CmpTargetHigh ? CmpSlew : -CmpSlew;
+
+    /// <summary>
+    /// The state <paramref name="h"/> seconds on, with the modes unchanged: exact, because every input is a
+    /// straight line while the modes hold. Open-loop outputs move linearly; the capacitor and the shunted
+    /// integrator follow a first-order lag of a ramp input (particular ramp plus decaying exponential); the
+    /// unshunted integrator integrates the ramp (a parabola).
+    /// </summary>
+    public void Advance(ReadOnlySpan<double> x, double h, Span<double> result)
     {
-        dx[Osc] = OscHeld ? 0 : OscTargetHigh ? OscSlew : -OscSlew;
-        dx[Cap] = hasCapacitor ? (x[Osc] - x[Cap]) * rcInverse : 0;
-        dx[Int] = hasIntegrator && IntHeld == 0 ? Math.Clamp(IntegratorSlope(x), -IntSlew, IntSlew) : 0;
-        dx[Cmp] = CmpHeld ? 0 : CmpTargetHigh ? CmpSlew : -CmpSlew;
+        var oscSlope = OscSlope;
+        result[Osc] = x[Osc] + oscSlope * h;
+        result[Cmp] = x[Cmp] + CmpSlope * h;
+        result[Cap] = x[Cap];
+        if (hasCapacitor)
+        {
+            // vc' = (vo − vc)/RC with vo = vo0 + m·t: vc = vo − m·RC + (vc0 − vo0 + m·RC)·e^(−t/RC).
+            var decay = SpecialFunctions.Expm1(-h / rc);
+            result[Cap] = x[Cap] + oscSlope * h + (x[Cap] - x[Osc] + oscSlope * rc) * decay;
+        }
+        result[Int] = hasIntegrator ? AdvanceIntegrator(x, h, oscSlope) : x[Int];
+    }
+
+    private double AdvanceIntegrator(ReadOnlySpan<double> x, double h, double oscSlope)
+    {
+        switch (IntMode)
+        {
+            case IntegratorMode.SlewingUp: return x[Int] + IntSlew * h;
+            case IntegratorMode.SlewingDown: return x[Int] - IntSlew * h;
+            case IntegratorMode.HeldHigh or IntegratorMode.HeldLow: return x[Int];
+        }
+        double u = x[Int] - vref, w = x[Osc] - vref;
+        if (double.IsPositiveInfinity(tauShunt))
+            return x[Int] - (w * h + oscSlope * h * h / 2) / riCi;
+        // u' = −w/(Ri·Ci) − u/τ, w = w0 + m·t, g = Rf/Ri: u = A + B·t + (u0 − A)·e^(−t/τ),
+        // A = −g·(w0 − m·τ), B = −g·m.
+        var a = -shuntGain * (w - oscSlope * tauShunt);
+        var b = -shuntGain * oscSlope;
+        return vref + u + b * h + (u - a) * SpecialFunctions.Expm1(-h / tauShunt);
     }
 
     /// <summary>Slope of the integrator output with an ideal op-amp (virtual ground at the reference).</summary>
     private double IntegratorSlope(ReadOnlySpan<double> x) =>
-        -(x[Osc] - vref) * riCiInverse - (x[Int] - vref) * rfCiInverse;
+        -(x[Osc] - vref) / riCi - (x[Int] - vref) / tauShunt;
 
     /// <summary>v+ − v− of the oscillator or Schmitt section.</summary>
     private double OscillatorInput(ReadOnlySpan<double> x) => topology == SimulatedTopology.Loop
@@ -119,30 +174,48 @@ internal sealed class CircuitDynamics
         var cmpInput = ComparatorInput(x);
         g[CmpFlip] = CmpTargetHigh ? cmpInput : -cmpInput;
         g[CmpArrive] = CmpHeld ? double.PositiveInfinity : CmpTargetHigh ? CmpHigh - x[Cmp] : x[Cmp] - CmpLow;
-        if (!hasIntegrator)
-        {
-            g[IntTop] = g[IntBottom] = double.PositiveInfinity;
-            return;
-        }
+        g[IntTop] = g[IntBottom] = g[IntFastUp] = g[IntFastDown] = double.PositiveInfinity;
+        if (!hasIntegrator) return;
         var slope = IntegratorSlope(x);
-        g[IntTop] = IntHeld switch { 0 => IntHigh - x[Int], 1 => slope, _ => double.PositiveInfinity };
-        g[IntBottom] = IntHeld switch { 0 => x[Int] - IntLow, -1 => -slope, _ => double.PositiveInfinity };
+        switch (IntMode)
+        {
+            case IntegratorMode.Linear:
+                g[IntTop] = IntHigh - x[Int];
+                g[IntBottom] = x[Int] - IntLow;
+                g[IntFastUp] = IntSlew - slope;
+                g[IntFastDown] = IntSlew + slope;
+                break;
+            case IntegratorMode.SlewingUp:
+                g[IntTop] = IntHigh - x[Int];
+                g[IntFastUp] = slope - IntSlew;
+                break;
+            case IntegratorMode.SlewingDown:
+                g[IntBottom] = x[Int] - IntLow;
+                g[IntFastDown] = -slope - IntSlew;
+                break;
+            case IntegratorMode.HeldHigh:
+                g[IntTop] = slope;
+                break;
+            case IntegratorMode.HeldLow:
+                g[IntBottom] = -slope;
+                break;
+        }
     }
 
     /// <summary>
     /// True when no switch can happen again: both open-loop outputs held, the continuous states so near rest
     /// that all their remaining drift is below <paramref name="tolerance"/> (V), and both flips further than
-    /// that from happening. With the modes fixed, each continuous state decays towards its resting value
-    /// (|slope|·τ bounds what is left), or, for an integrator without shunt, moves at a constant slope, which
-    /// is bounded over <paramref name="horizon"/> (s).
+    /// that from happening. With the modes fixed, the capacitor and a shunted integrator settle exponentially
+    /// (|slope|·τ is what is left); an unshunted integrator moves at a constant slope, bounded over
+    /// <paramref name="horizon"/> (s).
     /// </summary>
-    public bool IsQuiescent(ReadOnlySpan<double> x, Span<double> dx, Span<double> g, double horizon, double tolerance)
+    public bool IsQuiescent(ReadOnlySpan<double> x, Span<double> g, double horizon, double tolerance)
     {
         if (!OscHeld || !CmpHeld) return false;
-        Derivative(x, dx);
-        var drift = hasCapacitor ? Math.Abs(dx[Cap]) / rcInverse : 0;
-        if (hasIntegrator && IntHeld == 0)
-            drift = Math.Max(drift, Math.Abs(dx[Int]) * (rfCiInverse > 0 ? 1 / rfCiInverse : horizon));
+        var drift = hasCapacitor ? Math.Abs(x[Osc] - x[Cap]) : 0;
+        if (hasIntegrator && IntMode is IntegratorMode.SlewingUp or IntegratorMode.SlewingDown) return false;
+        if (hasIntegrator && IntMode == IntegratorMode.Linear)
+            drift = Math.Max(drift, Math.Abs(IntegratorSlope(x)) * (double.IsPositiveInfinity(tauShunt) ? horizon : tauShunt));
         if (!(drift < tolerance)) return false;
         Guards(x, g);
         return g[OscFlip] > tolerance && g[CmpFlip] > tolerance;
@@ -171,16 +244,29 @@ internal sealed class CircuitDynamics
                 x[Cmp] = CmpTargetHigh ? CmpHigh : CmpLow;
                 CmpHeld = true;
                 break;
+            case IntTop when IntMode == IntegratorMode.HeldHigh:
+            case IntBottom when IntMode == IntegratorMode.HeldLow:
+                IntMode = FreeMode(IntegratorSlope(x));
+                break;
             case IntTop:
-                if (IntHeld == 0) { x[Int] = IntHigh; IntHeld = 1; }
-                else IntHeld = 0;
+                x[Int] = IntHigh;
+                IntMode = IntegratorMode.HeldHigh;
                 break;
             case IntBottom:
-                if (IntHeld == 0) { x[Int] = IntLow; IntHeld = -1; }
-                else IntHeld = 0;
+                x[Int] = IntLow;
+                IntMode = IntegratorMode.HeldLow;
+                break;
+            case IntFastUp:
+                IntMode = IntMode == IntegratorMode.Linear ? IntegratorMode.SlewingUp : IntegratorMode.Linear;
+                break;
+            case IntFastDown:
+                IntMode = IntMode == IntegratorMode.Linear ? IntegratorMode.SlewingDown : IntegratorMode.Linear;
                 break;
             default:
                 throw new ArgumentOutOfRangeException(nameof(guard));
         }
     }
+
+    private IntegratorMode FreeMode(double slope) =>
+        slope > IntSlew ? IntegratorMode.SlewingUp : slope < -IntSlew ? IntegratorMode.SlewingDown : IntegratorMode.Linear;
 }

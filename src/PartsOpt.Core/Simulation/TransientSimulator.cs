@@ -5,21 +5,19 @@ namespace PartsOpt.Simulation;
 /// numerical check of the closed-form figures. See docs/simulation.md for the method.
 /// </summary>
 /// <remarks>
-/// Method: the circuit is a hybrid system (<see cref="CircuitDynamics"/>). Between switching events its
-/// continuous states are integrated with the classical fourth-order Runge–Kutta method at a fixed largest
-/// step (the estimated period over <see cref="SimulationOptions.StepsPerPeriod"/>, and at most a fiftieth
-/// of the oscillator's R·C or the integrator's Rf·Ci). After each step every switching function is
-/// checked; when one has crossed zero, its crossing time inside the step is found by the Illinois variant
-/// of regula falsi on the Runge–Kutta solution from the start of the step (to a billionth of the step),
-/// the run advances exactly there, and the switch is made. Slewing and held outputs are linear, so
-/// Runge–Kutta integrates them exactly and their arrival at a limit is found exactly; only the
-/// exponential capacitor and shunted-integrator segments carry a truncation error, of order (h/τ)^5 per step.
+/// Method: the circuit is a hybrid system (<see cref="CircuitDynamics"/>). While its modes hold, every input
+/// is a straight line, so the voltages have an exact solution (linear, parabolic, or a first-order lag of a
+/// ramp). The run advances by that solution in steps of at most the estimated period over
+/// <see cref="SimulationOptions.StepsPerPeriod"/>; after each step every switching function is checked, and
+/// when one has crossed zero its crossing time inside the step is found by the Illinois variant of regula
+/// falsi on the exact solution (to a billionth of the step), the run advances exactly there, and the
+/// switch is made. Nothing is truncated, so there is no stiffness: the step only sets how finely the
+/// waveforms are sampled and how narrow a pulse can be before it may be missed.
 /// </remarks>
 public static class TransientSimulator
 {
     private const double RootTolerance = 1e-9; // of the step
     private const int RootIterations = 200;
-    private const double StepsPerTimeConstant = 50;
     private const double RestTolerance = 1e-9; // of the supply span
     private const int RestCheckInterval = 16; // steps
 
@@ -41,7 +39,7 @@ public static class TransientSimulator
         options.Validate();
         var dynamics = new CircuitDynamics(circuit);
         var estimate = EstimatedPeriod(circuit);
-        var maxStep = options.MaxStep ?? DefaultMaxStep(circuit, estimate, options.StepsPerPeriod);
+        var maxStep = options.MaxStep ?? estimate / options.StepsPerPeriod;
         var restTolerance = RestTolerance * (circuit.SupplyPositive - circuit.SupplyNegative);
         var run = new EventRun(dynamics, maxStep, options);
         var (outcome, reason) = run.Execute(options.SilencePeriods * estimate, restTolerance);
@@ -85,35 +83,11 @@ public static class TransientSimulator
         return 2 * circuit.OscR * circuit.OscC * Math.Log((1 + beta) / (1 - beta)) + slewing;
     }
 
-    /// <summary>
-    /// The period step (estimate / steps per period), further limited to resolve each exponential with 50
-    /// steps per time constant, except that a time constant far shorter than the period may not drive the
-    /// step below a tenth of the period step: such a stage only settles quickly, and Runge–Kutta follows it
-    /// stably (it is stable up to about 2.8 τ; the step stays at or below 2 τ) and tracks its resting value exactly.
-    /// </summary>
-    internal static double DefaultMaxStep(SimulatedCircuit circuit, double estimate, int stepsPerPeriod)
-    {
-        var periodStep = estimate / stepsPerPeriod;
-        var tau = ShortestTimeConstant(circuit);
-        var resolving = Math.Max(tau / StepsPerTimeConstant, Math.Min(periodStep / 10, 2 * tau));
-        return Math.Min(periodStep, resolving);
-    }
-
-    private static double ShortestTimeConstant(SimulatedCircuit circuit)
-    {
-        var shortest = double.PositiveInfinity;
-        if (circuit.Topology != SimulatedTopology.Loop) shortest = circuit.OscR * circuit.OscC;
-        if (circuit.Topology != SimulatedTopology.RcRamp) shortest = Math.Min(shortest, circuit.IntRf * circuit.IntC);
-        return shortest;
-    }
-
-    /// <summary>The stepping loop of one run: Runge–Kutta steps cut short at switching events.</summary>
+    /// <summary>The stepping loop of one run: exact steps cut short at switching events.</summary>
     private sealed class EventRun(CircuitDynamics dynamics, double maxStep, SimulationOptions options)
     {
         private readonly double[] x = new double[CircuitDynamics.StateSize];
         private readonly double[] trial = new double[CircuitDynamics.StateSize];
-        private readonly double[] stage = new double[CircuitDynamics.StateSize];
-        private readonly double[][] k = [new double[4], new double[4], new double[4], new double[4]];
         private readonly double[] guards = new double[CircuitDynamics.GuardCount];
         private readonly double[] probe = new double[CircuitDynamics.GuardCount];
         private readonly double[] scratch = new double[CircuitDynamics.StateSize];
@@ -138,7 +112,7 @@ public static class TransientSimulator
                 var lastEdge = Trace.RisingEdges.Count > 0 ? Trace.RisingEdges[^1] : 0;
                 if (Time - lastEdge > silenceLimit)
                     return (SimulationOutcome.DoesNotOscillate, SilenceReason(lastEdge));
-                if (Steps % RestCheckInterval == 0 && dynamics.IsQuiescent(x, stage, probe, silenceLimit, restTolerance))
+                if (Steps % RestCheckInterval == 0 && dynamics.IsQuiescent(x, probe, silenceLimit, restTolerance))
                     return (SimulationOutcome.DoesNotOscillate, RestReason());
                 if (Steps >= options.MaxSteps)
                     return (SimulationOutcome.WorkLimitReached,
@@ -176,14 +150,14 @@ public static class TransientSimulator
 
         private void Step()
         {
-            RungeKutta(maxStep, trial);
+            dynamics.Advance(x, maxStep, trial);
             dynamics.Guards(trial, guards);
             var step = maxStep;
             for (var i = 0; i < guards.Length; i++)
             {
                 if (guards[i] < 0) step = Math.Min(step, Crossing(i, step, guards[i]));
             }
-            if (step < maxStep) RungeKutta(step, trial);
+            if (step < maxStep) dynamics.Advance(x, step, trial);
             Array.Copy(trial, x, x.Length);
             Time += step;
             Steps++;
@@ -204,7 +178,7 @@ public static class TransientSimulator
             {
                 var c = (a * gb - b * ga) / (gb - ga);
                 c = Math.Clamp(double.IsFinite(c) ? c : (a + b) / 2, a + tolerance / 2, b - tolerance / 2);
-                RungeKutta(c, scratch);
+                dynamics.Advance(x, c, scratch);
                 dynamics.Guards(scratch, probe);
                 var gc = probe[guard];
                 if (gc < 0)
@@ -221,25 +195,6 @@ public static class TransientSimulator
                 }
             }
             return b;
-        }
-
-        /// <summary>One classical fourth-order Runge–Kutta step of length <paramref name="h"/> from the current state.</summary>
-        private void RungeKutta(double h, double[] result)
-        {
-            dynamics.Derivative(x, k[0]);
-            Combine(h / 2, k[0], stage);
-            dynamics.Derivative(stage, k[1]);
-            Combine(h / 2, k[1], stage);
-            dynamics.Derivative(stage, k[2]);
-            Combine(h, k[2], stage);
-            dynamics.Derivative(stage, k[3]);
-            for (var i = 0; i < x.Length; i++)
-                result[i] = x[i] + h / 6 * (k[0][i] + 2 * k[1][i] + 2 * k[2][i] + k[3][i]);
-        }
-
-        private void Combine(double h, double[] slope, double[] into)
-        {
-            for (var i = 0; i < x.Length; i++) into[i] = x[i] + h * slope[i];
         }
     }
 }
