@@ -80,4 +80,35 @@ public class IntegratorTests
         }
         Precision.AlmostEqualRelative(max - min, figures.TrianglePeakToPeak, 1e-4, "Vpp against MathNet RK4");
     }
+
+    [Fact]
+    public void SlewLimitedShuntedIntegratorMatchesMathNetRungeKutta()
+    {
+        // Ideal slope Vs/(Ri·Ci) = 5.45 kV/s plus up to about 0.7 kV/s from the shunt: a 5.5 kV/s limit clips the
+        // start of every half period and releases it part-way through, a case with no closed form here.
+        const double rf = 20e3, ci = 220e-9, slewRate = 5.5e3;
+        var circuit = TestCircuits.ThreeStage(rf, ci) with { Integrator = new OpAmpSection(0, 0, slewRate) };
+        var figures = TestCircuits.Figures(TransientSimulator.Run(circuit, Settled));
+
+        // Reference: MathNet.Numerics' fourth-order Runge–Kutta on dv/dt = clamp(−u/(Ri·Ci) − v/(Rf·Ci), ±SR),
+        // one call per half period of the square u = ±Vs, half period from the simulated frequency.
+        var half = 1 / figures.Frequency / 2;
+        double v = 0, max = double.NegativeInfinity, min = double.PositiveInfinity;
+        for (var n = 0; n < 60; n++)
+        {
+            var u = n % 2 == 0 ? Vs : -Vs;
+            var path = RungeKutta.FourthOrder(v, 0, half, 20001,
+                (_, y) => Math.Clamp(-u / (Ri * ci) - y / (rf * ci), -slewRate, slewRate));
+            v = path[^1];
+            if (n >= 58)
+            {
+                max = Math.Max(max, path.Max());
+                min = Math.Min(min, path.Min());
+            }
+        }
+        Precision.AlmostEqualRelative(max - min, figures.TrianglePeakToPeak, 1e-4, "Vpp against MathNet RK4");
+        // The clip must bite: the unlimited tanh law (REFERENCE.md, derived) gives a larger swing.
+        var unlimited = 2 * (rf / Ri) * Vs * Math.Tanh(2 * half / (4 * rf * ci));
+        Assert.True(figures.TrianglePeakToPeak < unlimited * 0.995, $"Vpp {figures.TrianglePeakToPeak} vs unlimited {unlimited}");
+    }
 }
