@@ -30,14 +30,17 @@ internal static class WaveformReduction
                 if (highest < 0 || value[i] > value[highest]) highest = i;
             }
             if (lowest < 0) continue;
-            foreach (var k in lowest == highest ? [lowest] : new[] { Math.Min(lowest, highest), Math.Max(lowest, highest) })
-            {
-                keptTime.Add(time[k]);
-                keptValue.Add(value[k]);
-            }
+            Keep(Math.Min(lowest, highest));
+            if (highest != lowest) Keep(Math.Max(lowest, highest));
         }
         keptTime.Add(time[n - 1]);
         keptValue.Add(value[n - 1]);
         return new Waveform(name, keptTime.ToArray(), keptValue.ToArray());
+
+        void Keep(int k)
+        {
+            keptTime.Add(time[k]);
+            keptValue.Add(value[k]);
+        }
     }
 }

@@ -21,10 +21,31 @@ public class SimulatorLimitsTests
         Assert.Equal(SimulationOutcome.DoesNotOscillate, result.Outcome);
         Assert.False(result.Oscillates);
         Assert.Null(result.Figures);
-        Assert.NotNull(result.Reason);
         Assert.Equal(1.5, result.Oscillator.Value[^1]);
-        // It stops at the silence limit, a few tens of estimated periods, not at the step cap.
-        Assert.True(result.Steps < 100_000, $"took {result.Steps} steps");
+        // It stops once the capacitor has come to rest (≈ 20·RC = 20 ms), before the silence limit of
+        // 20 estimated periods (44 ms), and far from the step cap.
+        Assert.Contains("came to rest", result.Reason, StringComparison.Ordinal);
+        Assert.InRange(result.SimulatedTime, 0.005, 0.044);
+    }
+
+    [Fact]
+    public void SlowDriftWithoutSwitchingStopsAtTheSilenceLimit()
+    {
+        // As above, but β = 1/101: the estimated period 2RC·ln((1+β)/(1−β)) ≈ 0.04·RC is far shorter than the
+        // capacitor's creep towards rest (tens of RC), so the silence limit of 20 estimated periods ends the run.
+        var circuit = TestCircuits.RcRamp(r1: 100e3, r2: 1e3) with
+        {
+            SupplyNegative = 0,
+            Reference = 0,
+            Oscillator = new OpAmpSection(1.5, 1.5, double.PositiveInfinity),
+        };
+        var result = TransientSimulator.Run(circuit);
+
+        Assert.Equal(SimulationOutcome.DoesNotOscillate, result.Outcome);
+        Assert.Contains("has not risen", result.Reason, StringComparison.Ordinal);
+        var beta = 1.0 / 101;
+        var silence = 20 * 2 * 10e3 * 100e-9 * Math.Log((1 + beta) / (1 - beta));
+        Precision.AlmostEqualRelative(silence, result.SimulatedTime, 0.01, "run length = silence limit");
     }
 
     [Fact]
