@@ -85,6 +85,26 @@ public class IntegratorTests
         Precision.AlmostEqualRelative(100 * worst / vpp, e.Value(FigureNames.LinearityError), 1e-6, "linearity error %");
     }
 
+    [Fact]
+    public void Rc_ramp_linearity_error_by_sampling_the_capacitor()
+    {
+        const double r = 10e3, c = 100e-9;
+        var e = CircuitAnalysis.Analyse(TestCircuits.RcRamp(r: r, c: c, r1: 10e3, r2: 22e3));
+
+        // Sedra & Smith's capacitor: from −βL towards +L, reaching +βL after RC·ln((1+β)/(1−β)); sampled densely.
+        double beta = 22.0 / 32, l = 12, tau = r * c, half = tau * Math.Log((1 + beta) / (1 - beta));
+        double v0 = -beta * l, v1 = beta * l, worst = 0;
+        const int steps = 200_000;
+        for (var i = 0; i <= steps; i++)
+        {
+            var t = half * i / steps;
+            var v = l + (v0 - l) * Math.Exp(-t / tau);
+            worst = Math.Max(worst, Math.Abs(v - (v0 + (v1 - v0) * t / half)));
+        }
+
+        Precision.AlmostEqualRelative(100 * worst / (v1 - v0), e.Value(FigureNames.LinearityError), 1e-6, "linearity error %");
+    }
+
     private static (double Max, double Min, double Mean) SimulateIntegrator(double lp, double lm, double high, double low,
         double ri, double ci, double rf)
     {
