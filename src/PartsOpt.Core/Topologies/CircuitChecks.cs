@@ -35,6 +35,8 @@ internal static class CircuitChecks
             CommonMode(checks, design, in w);
             Operation(checks, design, in v, in w);
             OutputCurrents(checks, design, shape, in v, in w);
+            if (shape.SingleSupply && !design.BufferReference)
+                StiffReference(checks, design, in v, in w);
         }
 
         PartRatingChecks.Add(checks, design, shape, in v, in w);
@@ -68,8 +70,7 @@ internal static class CircuitChecks
                 F($"must lie inside the integrator's swing {lm:G4}…{lp:G4} V about the reference.")));
             var hysteresis = k * (lp - lm);
             checks.Add(Check("hysteresis above offset", hysteresis - HysteresisOffsets * shape.AmpOffsetV, "V",
-                F($"Hysteresis {hysteresis:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V (common practice)."),
-                CheckSeverity.Warning));
+                F($"Hysteresis {hysteresis:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V: below that the offset, not the parts, sets the timing (common practice).")));
             return;
         }
 
@@ -80,8 +81,7 @@ internal static class CircuitChecks
             F($"the output swing {lm:G4}…{lp:G4} V by more than the input offset.")));
         var hyst = beta * (lp - lm);
         checks.Add(Check("hysteresis above offset", hyst - HysteresisOffsets * shape.AmpOffsetV, "V",
-            F($"Hysteresis {hyst:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V (common practice)."),
-            CheckSeverity.Warning));
+            F($"Hysteresis {hyst:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V: below that the offset, not the parts, sets the timing (common practice).")));
     }
 
     private static void CommonMode(List<CircuitCheck> checks, CircuitDesign design, in Waveform w)
@@ -165,6 +165,30 @@ internal static class CircuitChecks
             checks.Add(Check("shortest pulse reaches full swing", shortest / edges - 1, "1",
                 F($"The shortest pulse at the duty extremes lasts {shortest:G4} s; it reaches full swing only if longer than rise plus fall, {edges:G4} s."),
                 CheckSeverity.Warning));
+    }
+
+    /// <summary>Share of the returned load the reference's source resistance may be, at most (common practice).</summary>
+    public const double ReferenceSourceShare = 0.01;
+
+    /// <summary>Bypass time constant wanted, in periods (common practice).</summary>
+    public const double BypassPeriods = 10;
+
+    private static void StiffReference(List<CircuitCheck> checks, CircuitDesign design, in CircuitValues v, in Waveform w)
+    {
+        var source = v.RefRtop * v.RefRbottom / (v.RefRtop + v.RefRbottom);
+        if (design.Topology != TopologyKind.Loop)
+        {
+            // The hysteresis divider returns its current to the reference; the loop returns only input currents.
+            var load = v.OscR1 + v.OscR2;
+            checks.Add(Check("reference stiff against its load", 1 - source / (ReferenceSourceShare * load), "1",
+                F($"The unbuffered reference's source resistance {source:G4} Ω against {ReferenceSourceShare:P0} of the osc.r1 + osc.r2 load, {load:G4} Ω (common practice)."),
+                CheckSeverity.Warning));
+        }
+
+        var bypass = source * v.RefC;
+        checks.Add(Check("reference bypass", bypass / (BypassPeriods * w.PeriodS) - 1, "1",
+            F($"The bypass time constant {bypass:G4} s against {BypassPeriods} periods, {BypassPeriods * w.PeriodS:G4} s (common practice)."),
+            CheckSeverity.Warning));
     }
 
     private static void OutputCurrents(List<CircuitCheck> checks, CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w)

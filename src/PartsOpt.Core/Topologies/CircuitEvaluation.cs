@@ -72,5 +72,7 @@ public sealed record CircuitEvaluation(
     public bool Works => Checks.All(c => c.Passed || c.Severity != CheckSeverity.Failure);
 
     /// <summary>The value of a figure by name; null when it does not exist for this design.</summary>
-    public double? Figure(string name) => Figures.First(f => f.Name == name).Value;
+    /// <exception cref="ArgumentException">No figure has that name (see <see cref="FigureNames"/>).</exception>
+    public double? Figure(string name) =>
+        (Figures.FirstOrDefault(f => f.Name == name) ?? throw new ArgumentException($"Unknown figure '{name}'.", nameof(name))).Value;
 }

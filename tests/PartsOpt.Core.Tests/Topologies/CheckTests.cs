@@ -133,6 +133,39 @@ public class CheckTests
         Assert.True(CircuitAnalysis.Analyse(TestCircuits.ThreeStage()).Check("output edges short against the period").Passed);
     }
 
+    [Fact]
+    public void Hysteresis_drowned_by_the_offset_fails()
+    {
+        // β = 10 Ω/100 kΩ ≈ 1e-4: hysteresis ≈ 2.4 mV against 4 × 3 mV offset (common practice).
+        var amp = TestCircuits.Ideal(offset: 3e-3);
+        var small = CircuitAnalysis.Analyse(TestCircuits.RcRamp(r1: 100e3, r2: 10, amp: amp));
+        var ample = CircuitAnalysis.Analyse(TestCircuits.RcRamp(r1: 100e3, r2: 10e3, amp: amp));
+
+        Assert.False(small.Check("hysteresis above offset").Passed);
+        Assert.False(small.Works);
+        Assert.True(ample.Check("hysteresis above offset").Passed);
+    }
+
+    [Fact]
+    public void Unbuffered_reference_is_checked_for_stiffness_and_bypass()
+    {
+        // Reference source 50 kΩ against a 20 kΩ hysteresis divider: far from 1 % (common practice).
+        var soft = SingleSupply(TestCircuits.RcRamp(), 24, 100e3, 100e3);
+        var e = CircuitAnalysis.Analyse(soft);
+        Assert.False(e.Check("reference stiff against its load").Passed);
+        Assert.Equal(CheckSeverity.Warning, e.Check("reference stiff against its load").Severity);
+        // 50 kΩ × 10 µF = 0.5 s against ten 2.2 ms periods: well bypassed.
+        Assert.True(e.Check("reference bypass").Passed);
+
+        var stiff = CircuitAnalysis.Analyse(SingleSupply(TestCircuits.RcRamp(), 24, 100, 100));
+        Assert.True(stiff.Check("reference stiff against its load").Passed);
+        Assert.False(stiff.Check("reference bypass").Passed); // 50 Ω × 10 µF = 0.5 ms < 22 ms
+
+        var buffered = CircuitAnalysis.Analyse(soft with { BufferReference = true });
+        Assert.DoesNotContain(buffered.Checks, c => c.Name.StartsWith("reference", StringComparison.Ordinal));
+        Assert.Contains(buffered.Checks, c => c.Name == "input common-mode range (reference buffer)");
+    }
+
     private static CircuitDesign Replace(CircuitDesign design, string role, RolePart part) =>
         design with { Roles = new Dictionary<string, RolePart>(design.Roles) { [role] = part } };
 

@@ -80,6 +80,16 @@ public class ValidationTests
     }
 
     [Fact]
+    public void A_comparator_part_cannot_integrate()
+    {
+        var comparator = TestCircuits.Ideal() with { IsComparator = true };
+        var error = Assert.Throws<DesignValidationException>(() => CircuitAnalysis.Analyse(TestCircuits.Loop(amp: comparator)));
+        Assert.Equal("amplifier.isComparator", error.Field);
+        // A comparator makes a fine relaxation oscillator: the rc-ramp needs no integrator.
+        Assert.NotNull(CircuitAnalysis.Analyse(TestCircuits.RcRamp(amp: comparator)).Figure(FigureNames.Frequency));
+    }
+
+    [Fact]
     public void Curve_points_are_bounded()
     {
         var error = Assert.Throws<DesignValidationException>(() => CircuitAnalysis.Analyse(TestCircuits.Loop(), 1));
