@@ -166,6 +166,22 @@ public class CheckTests
         Assert.Contains(buffered.Checks, c => c.Name == "input common-mode range (reference buffer)");
     }
 
+    [Theory]
+    [InlineData(5.9, 100e6, true, true)]    // 0.1 V overdrive, 0.24 µs edges: both fine
+    [InlineData(5.9, 5e6, false, true)]     // 2 × 4.8 µs edges against 1.67 µs pulses
+    [InlineData(5.995, 1e9, true, false)]   // 5 mV overdrive against 10 mV (common practice)
+    public void Duty_extremes_are_checked_for_pulse_width_and_overdrive(double edge, double slew, bool pulseOk, bool overdriveOk)
+    {
+        // ±6 V loop triangle at 5 kHz (Sedra & Smith's example); thresholds close to its peaks.
+        var comparator = TestCircuits.Ideal(slewRate: slew, sections: 1) with { IsComparator = true };
+        var design = TestCircuits.Loop(duty: DutyControl.ControlVoltage(-edge, edge)) with { Comparator = comparator };
+        var e = CircuitAnalysis.Analyse(design);
+
+        Assert.Equal(pulseOk, e.Check("shortest pulse reaches full swing").Passed);
+        Assert.Equal(overdriveOk, e.Check("comparator overdrive").Passed);
+        Assert.True(e.Works, "both are warnings");
+    }
+
     private static CircuitDesign Replace(CircuitDesign design, string role, RolePart part) =>
         design with { Roles = new Dictionary<string, RolePart>(design.Roles) { [role] = part } };
 

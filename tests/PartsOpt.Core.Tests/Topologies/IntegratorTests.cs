@@ -105,6 +105,55 @@ public class IntegratorTests
         Precision.AlmostEqualRelative(100 * worst / (v1 - v0), e.Value(FigureNames.LinearityError), 1e-6, "linearity error %");
     }
 
+    [Fact]
+    public void Three_stage_duty_on_the_lossy_ramp_matches_a_time_step_simulation()
+    {
+        const double ri = 10e3, ci = 100e-9, rf = 6.8e3;
+        var amp = TestCircuits.Ideal(headroomHigh: 0.5, headroomLow: 3);
+        var roles = new Dictionary<string, RolePart>();
+        var design = TestCircuits.ThreeStage(ri: ri, ci: ci, rf: rf, amp: amp, extra: roles) with
+        {
+            DutyControl = DutyControl.ControlVoltage(-6, 4),
+        };
+        var e = CircuitAnalysis.Analyse(design, 9);
+        double high = e.Value(FigureNames.HighTime), low = e.Value(FigureNames.LowTime);
+
+        foreach (var point in e.DutyCurve)
+        {
+            // Independent path: RK4 on the integrator (as above), time above the threshold counted step by step.
+            var duty = SimulatedDuty(11.5, -9, high, low, ri, ci, rf, point.ThresholdV);
+            Precision.AlmostEqualAbsolute(duty, point.Duty!.Value, 1e-4, $"duty at {point.ThresholdV} V");
+        }
+    }
+
+    private static double SimulatedDuty(double lp, double lm, double high, double low, double ri, double ci, double rf,
+        double threshold)
+    {
+        const int stepsPerSegment = 20_000, periods = 30;
+        double Slope(double vin, double x) => (-vin / ri - x / rf) / ci;
+        double v = 0, above = 0;
+        for (var p = 0; p < periods; p++)
+        {
+            foreach (var (vin, length) in new[] { (lp, high), (lm, low) })
+            {
+                var dt = length / stepsPerSegment;
+                for (var n = 0; n < stepsPerSegment; n++)
+                {
+                    var k1 = Slope(vin, v);
+                    var k2 = Slope(vin, v + dt / 2 * k1);
+                    var k3 = Slope(vin, v + dt / 2 * k2);
+                    var k4 = Slope(vin, v + dt * k3);
+                    var next = v + dt / 6 * (k1 + 2 * k2 + 2 * k3 + k4);
+                    if (p == periods - 1 && (v + next) / 2 > threshold)
+                        above += dt;
+                    v = next;
+                }
+            }
+        }
+
+        return above / (high + low);
+    }
+
     private static (double Max, double Min, double Mean) SimulateIntegrator(double lp, double lm, double high, double low,
         double ri, double ci, double rf)
     {
