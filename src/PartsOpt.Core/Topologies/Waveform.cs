@@ -81,6 +81,8 @@ internal struct Waveform
             w.ThresholdMaxV = shape.ControlMaxV;
         }
 
+        w.Ratio = shape.Topology == TopologyKind.Loop ? v.SchR1 / v.SchR2 : v.OscR2 / (v.OscR1 + v.OscR2);
+
         // The outputs must straddle the reference, or no threshold can ever be crossed.
         var switches = w.LevelHighRel > 0 && w.LevelLowRel < 0 && shape.Topology switch
         {
@@ -112,8 +114,7 @@ internal struct Waveform
 
     private static bool ThreeStage(in CircuitValues v, CircuitShape shape, ref Waveform w)
     {
-        var beta = v.OscR2 / (v.OscR1 + v.OscR2);
-        w.Ratio = beta;
+        var beta = w.Ratio;
         if (!RelaxationCanSwitch(in w, beta, shape.AmpOffsetV))
             return false;
         var (high, low, _, _) = RelaxationTimes(in v, in w, beta);
@@ -142,8 +143,7 @@ internal struct Waveform
 
     private static bool RcRamp(in CircuitValues v, CircuitShape shape, ref Waveform w)
     {
-        var beta = v.OscR2 / (v.OscR1 + v.OscR2);
-        w.Ratio = beta;
+        var beta = w.Ratio;
         if (!RelaxationCanSwitch(in w, beta, shape.AmpOffsetV))
             return false;
         var (high, low, xHigh, xLow) = RelaxationTimes(in v, in w, beta);
@@ -168,8 +168,7 @@ internal struct Waveform
     private static bool Loop(in CircuitValues v, ref Waveform w)
     {
         double lp = w.LevelHighRel, lm = w.LevelLowRel, te = w.AmpEdgeS;
-        var k = v.SchR1 / v.SchR2;
-        w.Ratio = k;
+        var k = w.Ratio;
         // Thresholds −k·L+ and −k·L− must lie inside the integrator's swing (r1 < r2 when symmetric).
         if (!(k * lp < -lm && -k * lm < lp))
             return false;
