@@ -222,9 +222,16 @@ internal static class CircuitChecks
         checks.Add(Check($"output current ({section})", 1 - currentA / part.MaxOutputCurrentA, "1",
             F($"The {section} output drives up to {currentA * 1e3:G4} mA into its networks; the part delivers {part.MaxOutputCurrentA * 1e3:G4} mA.")));
 
+    /// <summary>
+    /// A check from its margin. Margins are kept finite (±double.MaxValue at worst) so that every result
+    /// serialises; a margin that cannot be computed (NaN) fails.
+    /// </summary>
     internal static CircuitCheck Check(string name, double margin, string unit, string reason,
-        CheckSeverity severity = CheckSeverity.Failure) =>
-        new(name, margin >= 0, margin, unit, reason, severity);
+        CheckSeverity severity = CheckSeverity.Failure)
+    {
+        var finite = double.IsNaN(margin) ? -double.MaxValue : Math.Clamp(margin, -double.MaxValue, double.MaxValue);
+        return new(name, margin >= 0, finite, unit, reason, severity);
+    }
 
     internal static string F(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

@@ -15,7 +15,7 @@ public enum CheckSeverity
 /// </summary>
 /// <param name="Name">Short stable name, e.g. "oscillator can switch".</param>
 /// <param name="Passed">True when the design meets the limit.</param>
-/// <param name="Margin">Distance to the limit, positive inside it, in <paramref name="MarginUnit"/>.</param>
+/// <param name="Margin">Distance to the limit, positive inside it, in <paramref name="MarginUnit"/>; always finite.</param>
 /// <param name="MarginUnit">"V", "s", or "1" for a fraction of the limit.</param>
 /// <param name="Reason">What was checked and what came out, in plain words.</param>
 /// <param name="Severity">How serious a failure of this check is.</param>

@@ -182,6 +182,19 @@ public class CheckTests
         Assert.True(e.Works, "both are warnings");
     }
 
+    [Fact]
+    public void Margins_stay_finite_for_absurd_but_valid_values()
+    {
+        // A 1e-310 Ω pull-up asks for an infinite sink current: the check fails with a finite margin.
+        var openDrain = TestCircuits.Ideal(sections: 1) with { IsComparator = true, IsOpenDrain = true };
+        var design = Replace(TestCircuits.Loop() with { Comparator = openDrain }, Roles.CmpPullup, TestCircuits.R(1e-310));
+        var e = CircuitAnalysis.Analyse(design);
+
+        Assert.False(e.Check("output current (comparator)").Passed);
+        Assert.All(e.Checks, c => Assert.True(double.IsFinite(c.Margin), c.Name));
+        Assert.All(e.Figures, f => Assert.True(f.Value is null || double.IsFinite(f.Value.Value), f.Name));
+    }
+
     private static CircuitDesign Replace(CircuitDesign design, string role, RolePart part) =>
         design with { Roles = new Dictionary<string, RolePart>(design.Roles) { [role] = part } };
 
