@@ -20,6 +20,9 @@ internal static class CircuitChecks
     /// <summary>Hysteresis wanted, in input offsets (common practice).</summary>
     public const double HysteresisOffsets = 4;
 
+    /// <summary>Triangle shift by the integrator's amplified offset, at most this share of its peak-to-peak (common practice).</summary>
+    public const double OffsetShiftShare = 0.1;
+
     /// <summary>Frequency at most this share of the gain-bandwidth product (common practice).</summary>
     public const double BandwidthShare = 0.01;
 
@@ -123,6 +126,16 @@ internal static class CircuitChecks
             var bottom = design.Supply.NegativeV + v.AmpHeadroomLow;
             checks.Add(Check("triangle inside integrator swing", Math.Min(top - w.RampMaxV, w.RampMinV - bottom), "V",
                 F($"The triangle spans {w.RampMinV:G4}…{w.RampMaxV:G4} V; the integrator swings {bottom:G4}…{top:G4} V.")));
+        }
+
+        if (design.Topology == TopologyKind.ThreeStage)
+        {
+            // The shunted integrator amplifies its own input offset by its DC noise gain 1 + Rf/Ri.
+            var shift = (1 + v.IntRf / v.IntR) * design.Amplifier.InputOffsetV;
+            var allowed = OffsetShiftShare * (w.RampMaxRel - w.RampMinRel);
+            checks.Add(Check("integrator offset shift", 1 - shift / allowed, "1",
+                F($"The integrator's input offset, times its DC noise gain 1 + Rf/Ri, may shift the triangle by {shift:G4} V; keep it below {OffsetShiftShare:P0} of the peak-to-peak, {allowed:G4} V (common practice)."),
+                CheckSeverity.Warning));
         }
 
         var frequency = 1 / w.PeriodS;

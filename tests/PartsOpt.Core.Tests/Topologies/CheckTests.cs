@@ -195,6 +195,20 @@ public class CheckTests
         Assert.All(e.Figures, f => Assert.True(f.Value is null || double.IsFinite(f.Value.Value), f.Name));
     }
 
+    [Fact]
+    public void Integrator_offset_times_its_noise_gain_is_weighed_against_the_triangle()
+    {
+        // DC noise gain 1 + Rf/Ri (Sedra & Smith, from memory): 1 + 10 MΩ/10 kΩ ≈ 1001 × 3 mV ≈ 3 V on a ~1.2 V triangle.
+        var amp = TestCircuits.Real();
+        var lossy = CircuitAnalysis.Analyse(TestCircuits.ThreeStage(ci: 1e-6, rf: 100e3, amp: amp));
+        var highGain = CircuitAnalysis.Analyse(TestCircuits.ThreeStage(ci: 1e-6, rf: 10e6, amp: amp));
+
+        Assert.True(lossy.Check("integrator offset shift").Passed);
+        var check = highGain.Check("integrator offset shift");
+        Assert.False(check.Passed);
+        Assert.Equal(CheckSeverity.Warning, check.Severity);
+    }
+
     private static CircuitDesign Replace(CircuitDesign design, string role, RolePart part) =>
         design with { Roles = new Dictionary<string, RolePart>(design.Roles) { [role] = part } };
 
