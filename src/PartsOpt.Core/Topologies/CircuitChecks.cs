@@ -33,6 +33,15 @@ internal static class CircuitChecks
         if (design.Comparator is { } separate)
             SupplyRange(checks, separate, "comparator", design.Supply);
         CanSwitch(checks, design, shape, in v, in w);
+        var canSwitch = checks.FindIndex(c => c.Name == "oscillator can switch");
+        if (!w.Oscillates && checks[canSwitch].Passed)
+        {
+            // Thresholds are reachable, yet no period comes out: the slewing edges eat the ramps, or the
+            // values lie so far out that the closed form overflows.
+            checks[canSwitch] = Check("oscillator can switch", -1, "1",
+                checks[canSwitch].Reason + " Even so, no steady period exists: the slewing edges leave no time for the ramps, or the values are out of range.");
+        }
+
         if (w.Oscillates)
         {
             CommonMode(checks, design, in w);

@@ -65,6 +65,18 @@ public class LoopTests
     }
 
     [Fact]
+    public void Edges_that_outlast_the_ramps_leave_no_period()
+    {
+        // Levels +11.5/−2 V, thresholds −1.15/+0.2 V (r1/r2 = 0.1) and a 20 V/ms slew: each edge (0.675 ms)
+        // shifts the restart by −t_e·(L+ + L−)/(2·Ri·Ci) ≈ −3.2 V, past the 1.35 V between the thresholds.
+        var amp = TestCircuits.Ideal(slewRate: 2e4, headroomHigh: 0.5, headroomLow: 10);
+        var e = CircuitAnalysis.Analyse(TestCircuits.Loop(r1: 2e3, r2: 20e3, ri: 10e3, ci: 100e-9, amp: amp));
+
+        Assert.False(e.Check("oscillator can switch").Passed);
+        Assert.Null(e.Figure(FigureNames.Frequency));
+    }
+
+    [Fact]
     public void Triangle_duty_is_linear_in_the_threshold_and_clamped()
     {
         var e = CircuitAnalysis.Analyse(TestCircuits.Loop(duty: DutyControl.ControlVoltage(-8, 8)), dutyCurvePoints: 17);
