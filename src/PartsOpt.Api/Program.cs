@@ -17,7 +17,7 @@ builder.Services.ConfigureHttpJsonOptions(options =>
 builder.Services.AddPartsOptDatabase();
 builder.Services.AddSingleton(TimeProvider.System);
 builder.Services.AddEndpointsApiExplorer();
-builder.Services.AddSwaggerGen(options => options.CustomSchemaIds(type => type.Name.Replace("`1", "Of", StringComparison.Ordinal)));
+builder.Services.AddSwaggerGen();
 
 var app = builder.Build();
 

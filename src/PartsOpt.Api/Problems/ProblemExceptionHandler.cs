@@ -21,7 +21,9 @@ internal sealed class ProblemExceptionHandler(IProblemDetailsService problems) :
             {
                 Status = bad.StatusCode,
                 Title = "The request could not be read.",
-                Detail = bad.Message,
+                // Binding says "Implicit body inferred for parameter ... but no body was provided": say it plainly.
+                Detail = bad.Message.Contains("no body was provided", StringComparison.Ordinal)
+                    ? "This request needs a JSON body." : bad.Message,
             },
             FormatException format => new ProblemDetails
             {
