@@ -27,7 +27,7 @@ public sealed class SeedTests
         Assert.InRange(total, 150, 250); // "about 200 lines" of demo stock
         Assert.Equal(total, movements); // one receipt per part
 
-        using var restarted = new StockFactory(folder) { Seed = true };
+        using var restarted = new StockFactory { Folder = folder, Seed = true };
         var again = await restarted.CreateClient().GetFromJsonAsync<PagedList<PartDto>>("/api/v1/parts?pageSize=1", Api.Json);
         Assert.Equal(total, again!.Total);
         Assert.Equal(movements, await restarted.WithDbAsync(db => Task.FromResult(db.Movements.Count())));

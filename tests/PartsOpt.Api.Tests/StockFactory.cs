@@ -13,18 +13,9 @@ namespace PartsOpt.Api.Tests;
 /// </summary>
 public class StockFactory : WebApplicationFactory<Program>
 {
-    public StockFactory() : this(Path.Combine(Path.GetTempPath(), "partsopt-tests", Guid.NewGuid().ToString("N")))
-    {
-    }
+    /// <summary>The folder of the database; set it to an earlier factory's to restart on the same file.</summary>
+    public string Folder { get; init; } = Path.Combine(Path.GetTempPath(), "partsopt-tests", Guid.NewGuid().ToString("N"));
 
-    /// <summary>A factory over an existing folder, e.g. to restart the service on the same database.</summary>
-    public StockFactory(string folder)
-    {
-        Folder = folder;
-        Directory.CreateDirectory(Folder);
-    }
-
-    public string Folder { get; }
     public string DatabasePath => Path.Combine(Folder, "stock.db");
     public bool Seed { get; init; }
     public bool OwnsFolder { get; init; } = true;
@@ -32,6 +23,7 @@ public class StockFactory : WebApplicationFactory<Program>
 
     protected override void ConfigureWebHost(IWebHostBuilder builder)
     {
+        Directory.CreateDirectory(Folder);
         builder.UseEnvironment("Development");
         builder.UseSetting(DatabaseSetup.DatabasePathKey, DatabasePath);
         builder.UseSetting(DemoStock.EnabledKey, Seed ? "true" : "false");

@@ -47,12 +47,16 @@ internal sealed class ProblemExceptionHandler(IProblemDetailsService problems) :
 
     private static HttpValidationProblemDetails FromJson(BadHttpRequestException bad, JsonException json)
     {
-        // "$.resistor.resistanceOhms" -> "resistor.resistanceOhms"; "$" alone is the whole body.
-        var field = json.Path is { Length: > 2 } path && path.StartsWith("$.", StringComparison.Ordinal) ? path[2..] : "$";
         var where = json.LineNumber is { } line ? $" (line {line + 1}, byte {json.BytePositionInLine + 1})" : "";
-        var message = field == "$"
-            ? $"The body is not valid JSON{where}."
-            : $"The value could not be read as this field's type{where}.";
+        // System.Text.Json says "could not be converted" when the JSON is well formed but a value has the
+        // wrong type for its field; anything else is broken JSON, a fault of the whole body ("$").
+        var wrongType = json.Message.StartsWith("The JSON value could not be converted", StringComparison.Ordinal);
+        var field = wrongType && json.Path is { Length: > 2 } path && path.StartsWith("$.", StringComparison.Ordinal)
+            ? path[2..] // "$.resistor.resistanceOhms" -> "resistor.resistanceOhms"
+            : "$";
+        var message = wrongType
+            ? $"The value could not be read as this field's type{where}."
+            : $"The body is not valid JSON{where}.";
         return new HttpValidationProblemDetails(new Dictionary<string, string[]> { [field] = [message] })
         {
             Status = bad.StatusCode,

@@ -11,7 +11,7 @@ namespace PartsOpt.Api.Parts.Csv;
 /// </summary>
 internal sealed class PartCsvRow(int line, IReadOnlyDictionary<string, string> cells, List<CsvLineError> errors)
 {
-    private int _errorCount;
+    private readonly HashSet<string> _badColumns = [];
 
     public CsvPartRow? Read()
     {
@@ -92,10 +92,13 @@ internal sealed class PartCsvRow(int line, IReadOnlyDictionary<string, string> c
             Error(C.Quantity, "The quantity on hand may not be negative.");
 
         // The JSON rules, for what the cells could be read into; a cell that did not read is reported once.
-        if (_errorCount == 0)
-            foreach (var (field, messages) in PartRules.Validate(input))
+        foreach (var (field, messages) in PartRules.Validate(input))
+        {
+            var column = C.ForField(field);
+            if (!_badColumns.Contains(column))
                 foreach (var message in messages)
-                    Error(C.ForField(field), message);
+                    Error(column, message);
+        }
         return errors.Count == before ? new CsvPartRow(line, input, quantity) : null;
     }
 
@@ -104,7 +107,7 @@ internal sealed class PartCsvRow(int line, IReadOnlyDictionary<string, string> c
 
     private void Error(string column, string message)
     {
-        _errorCount++;
+        _badColumns.Add(column);
         errors.Add(new CsvLineError(line, column, cells.GetValueOrDefault(column, ""), message));
     }
 
