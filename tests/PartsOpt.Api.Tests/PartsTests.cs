@@ -150,4 +150,30 @@ public sealed class PartsTests : IClassFixture<StockFactory>
         var c = (await _client.GetPart("C-JSON-1N")).Capacitor!;
         Assert.Equal(("C0G", 1e-9), (c.Dielectric, c.CapacitanceF!.Value));
     }
+
+    [Fact]
+    public async Task Value_fields_accept_the_text_people_type()
+    {
+        var response = await _client.PostJson("/api/v1/parts", """
+            {"partNumber": "R-TEXT-4K7", "kind": "resistor",
+             "resistor": {"resistanceOhms": "4k7", "toleranceMinus": 0.05, "tolerancePlus": 0.05, "powerRatingW": "250 mW"}}
+            """);
+        Assert.Equal(HttpStatusCode.Created, response.StatusCode);
+        var r = (await _client.GetPart("R-TEXT-4K7")).Resistor!;
+        Assert.Equal((4700, 0.25), (r.ResistanceOhms!.Value, r.PowerRatingW!.Value)); // IEC 60062 RKM: 4K7 = 4.7 kΩ
+
+        var cap = await _client.PostJson("/api/v1/parts", """
+            {"partNumber": "C-TEXT-100N", "kind": "capacitor",
+             "capacitor": {"capacitanceF": "100nF", "toleranceMinus": 0.1, "tolerancePlus": 0.1,
+                           "dielectric": "X7R", "voltageRatingV": "50V", "polarised": false}}
+            """);
+        Assert.Equal(HttpStatusCode.Created, cap.StatusCode);
+        Assert.Equal(100e-9, (await _client.GetPart("C-TEXT-100N")).Capacitor!.CapacitanceF!.Value);
+
+        var wrongUnit = await _client.PostJson("/api/v1/parts", """
+            {"partNumber": "R-TEXT-BAD", "kind": "resistor",
+             "resistor": {"resistanceOhms": "4.7 nF", "toleranceMinus": 0.05, "tolerancePlus": 0.05}}
+            """);
+        (await wrongUnit.AssertProblem(HttpStatusCode.BadRequest)).ErrorsFor("resistor.resistanceOhms");
+    }
 }

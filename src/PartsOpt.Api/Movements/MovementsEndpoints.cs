@@ -2,6 +2,7 @@ using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
+using PartsOpt.Api.Problems;
 
 namespace PartsOpt.Api.Movements;
 
@@ -22,7 +23,7 @@ public static class MovementsEndpoints
             .ProducesProblem(StatusCodes.Status404NotFound);
         movements.MapPost("/", Post).WithName("PostMovement")
             .WithSummary("Books a receipt (quantity > 0) or an adjustment (either sign) against a part.")
-            .ProducesValidationProblem()
+            .Validate<MovementInput>(Validate)
             .ProducesProblem(StatusCodes.Status404NotFound)
             .ProducesProblem(StatusCodes.Status409Conflict);
         return parts;
@@ -60,13 +61,10 @@ public static class MovementsEndpoints
             : TypedResults.Ok(MovementDto.From(movement));
     }
 
-    private static async Task<Results<Created<MovementDto>, ValidationProblem, ProblemHttpResult>> Post(
+    private static async Task<Results<Created<MovementDto>, ProblemHttpResult>> Post(
         string partNumber, MovementInput input, PartsOptDbContext db, HttpContext http, TimeProvider clock,
         CancellationToken ct)
     {
-        var errors = Validate(input);
-        if (errors.Count > 0)
-            return TypedResults.ValidationProblem(errors);
         var kind = input.Kind!.Equals("receipt", StringComparison.OrdinalIgnoreCase)
             ? MovementKind.Receipt : MovementKind.Adjustment;
 
@@ -88,7 +86,7 @@ public static class MovementsEndpoints
             MovementDto.From(movement));
     }
 
-    private static Dictionary<string, string[]> Validate(MovementInput input)
+    internal static Dictionary<string, string[]> Validate(MovementInput input)
     {
         var errors = new Dictionary<string, string[]>();
         var kind = input.Kind?.Trim().ToUpperInvariant();

@@ -1,3 +1,5 @@
+using System.Text.Json.Serialization;
+
 namespace PartsOpt.Api.Parts;
 
 // The part as JSON: common fields plus ONE kind-specific object named after the kind ("resistor",
@@ -50,15 +52,18 @@ public sealed record PartInput
 
 public sealed record ResistorFields
 {
+    [JsonConverter(typeof(OhmsJson))]
     public double? ResistanceOhms { get; init; }
     public double? ToleranceMinus { get; init; }
     public double? TolerancePlus { get; init; }
     public double? TempcoPpmPerK { get; init; }
+    [JsonConverter(typeof(WattsJson))]
     public double? PowerRatingW { get; init; }
 }
 
 public sealed record CapacitorFields
 {
+    [JsonConverter(typeof(FaradsJson))]
     public double? CapacitanceF { get; init; }
     public double? ToleranceMinus { get; init; }
     public double? TolerancePlus { get; init; }
@@ -69,6 +74,7 @@ public sealed record CapacitorFields
     /// <summary>C0G, X7R, X5R, Y5V, Z5U, Film or Electrolytic.</summary>
     public string? Dielectric { get; init; }
 
+    [JsonConverter(typeof(VoltsJson))]
     public double? VoltageRatingV { get; init; }
     public bool? Polarised { get; init; }
     public double? TempcoPpmPerK { get; init; }
@@ -76,6 +82,7 @@ public sealed record CapacitorFields
 
 public sealed record PotentiometerFields
 {
+    [JsonConverter(typeof(OhmsJson))]
     public double? ResistanceOhms { get; init; }
     public double? ToleranceMinus { get; init; }
     public double? TolerancePlus { get; init; }
@@ -83,6 +90,7 @@ public sealed record PotentiometerFields
     /// <summary>"linear" or "log".</summary>
     public string? Taper { get; init; }
 
+    [JsonConverter(typeof(WattsJson))]
     public double? PowerRatingW { get; init; }
 
     /// <summary>True for a board-mounted trimmer, false for a panel potentiometer.</summary>
@@ -95,20 +103,30 @@ public sealed record OpAmpFields
     public int? Sections { get; init; }
 
     /// <summary>Total supply (V+ − V−) range.</summary>
+    [JsonConverter(typeof(VoltsJson))]
     public double? SupplyMinV { get; init; }
+    [JsonConverter(typeof(VoltsJson))]
     public double? SupplyMaxV { get; init; }
+    [JsonConverter(typeof(HertzJson))]
     public double? GainBandwidthHz { get; init; }
     public double? SlewRateVPerS { get; init; }
 
     /// <summary>How close the output swings to each rail (≥ 0).</summary>
+    [JsonConverter(typeof(VoltsJson))]
     public double? OutputHeadroomLowV { get; init; }
+    [JsonConverter(typeof(VoltsJson))]
     public double? OutputHeadroomHighV { get; init; }
 
     /// <summary>Input common-mode headroom to each rail; negative means the range extends beyond the rail.</summary>
+    [JsonConverter(typeof(VoltsJson))]
     public double? InputHeadroomLowV { get; init; }
+    [JsonConverter(typeof(VoltsJson))]
     public double? InputHeadroomHighV { get; init; }
+    [JsonConverter(typeof(VoltsJson))]
     public double? InputOffsetV { get; init; }
+    [JsonConverter(typeof(AmpsJson))]
     public double? OutputCurrentMaxA { get; init; }
+    [JsonConverter(typeof(AmpsJson))]
     public double? QuiescentCurrentPerSectionA { get; init; }
 
     /// <summary>A dedicated comparator (no compensation, not for linear use).</summary>
