@@ -40,4 +40,18 @@ public sealed class SeedTests
         var page = await factory.CreateClient().GetFromJsonAsync<PagedList<PartDto>>("/api/v1/parts", Api.Json);
         Assert.Equal(0, page!.Total);
     }
+
+    [Fact]
+    public async Task The_whole_demo_stock_round_trips_through_export_and_import()
+    {
+        using var seeded = new StockFactory { Seed = true };
+        var exported = await seeded.CreateClient().Export();
+
+        using var empty = new StockFactory();
+        var client = empty.CreateClient();
+        var import = await client.PostAsync("/api/v1/parts/import",
+            new ByteArrayContent(exported) { Headers = { ContentType = new("text/csv") } });
+        Assert.Equal(System.Net.HttpStatusCode.OK, import.StatusCode);
+        Assert.Equal(exported, await client.Export());
+    }
 }
