@@ -172,7 +172,15 @@ public sealed class CsvImportTests
         var report = await (await client.PostCsv("/api/v1/parts/import", csv)).Content.ReadFromJsonAsync<JsonElement>();
         Assert.Equal(1, report.GetProperty("movements").GetInt32());
 
-        Assert.Equal((100, "recounted"), ((await client.GetPart("R-1K-F")).QuantityOnHand, (await client.GetPart("R-1K-F")).Description));
+        var priceOnly = await client.PostCsv("/api/v1/parts/import", "part_number,kind,unit_cost\r\nU-DUAL-A,op-amp,0.13\r\n");
+        Assert.Equal(HttpStatusCode.OK, priceOnly.StatusCode);
+        var amp = await client.GetPart("U-DUAL-A");
+        Assert.Equal((0.13m, 40, 1e6), (amp.UnitCost, amp.QuantityOnHand, amp.OpAmp!.GainBandwidthHz!.Value));
+
+        var recounted = await client.GetPart("R-1K-F");
+        Assert.Equal((100, "recounted"), (recounted.QuantityOnHand, recounted.Description));
+        // Columns the file leaves out keep their values: unit cost, currency, location, tempco.
+        Assert.Equal((0.011m, "GBP", "A1", 50.0), (recounted.UnitCost, recounted.Currency, recounted.Location, recounted.Resistor!.TempcoPpmPerK!.Value));
         Assert.Equal((5, "renamed only"), ((await client.GetPart("R-0R47-J")).QuantityOnHand, (await client.GetPart("R-0R47-J")).Description));
         var ledger = await client.GetFromJsonAsync<PagedList<MovementDto>>("/api/v1/parts/R-1K-F/movements", Api.Json);
         Assert.Equal(("adjustment", -20, "import"), (ledger!.Items[0].Kind, ledger.Items[0].OnHandChange, ledger.Items[0].Reason));

@@ -17,10 +17,14 @@ public sealed record CsvReadResult(IReadOnlyList<CsvPartRow> Rows, IReadOnlyList
 /// Reads our CSV format with CsvHelper (RFC 4180 quoting). It reads the whole file and reports every bad
 /// line and column rather than stopping at the first. Lines are counted as a text editor counts them, the
 /// header being line 1.
+/// For a part already in stock, a column the file leaves out keeps the part's current value (a blank cell
+/// in a column the file has clears it), so a file of just part numbers and prices changes only prices.
 /// </summary>
 public static class PartCsvReader
 {
-    public static CsvReadResult Read(TextReader text)
+    /// <param name="text">The file.</param>
+    /// <param name="inStock">The part in stock with a part number (ignoring case), or null.</param>
+    public static CsvReadResult Read(TextReader text, Func<string, Part?> inStock)
     {
         var errors = new List<CsvLineError>();
         var rows = new List<CsvPartRow>();
@@ -51,6 +55,17 @@ public static class PartCsvReader
                 continue;
             }
             var cells = header.ToDictionary(h => h, h => CsvCells.Restore(csv.GetField(h) ?? ""), StringComparer.Ordinal);
+            if (inStock(cells[PartCsvColumns.PartNumber].Trim()) is { } part)
+            {
+                if (PartKinds.TryParse(cells[PartCsvColumns.Kind], out var kind) && kind != part.Kind)
+                {
+                    errors.Add(new(line, PartCsvColumns.Kind, cells[PartCsvColumns.Kind],
+                        $"'{part.PartNumber}' is a {PartKinds.Name(part.Kind)} in stock; a kind cannot change."));
+                    continue;
+                }
+                foreach (var (column, current) in PartCsvWriter.CellsOf(part))
+                    cells.TryAdd(column, current);
+            }
             var row = new PartCsvRow(line, cells, errors).Read();
             if (row is null)
                 continue;

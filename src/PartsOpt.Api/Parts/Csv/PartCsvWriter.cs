@@ -21,14 +21,16 @@ public static class PartCsvWriter
         csv.NextRecord();
         foreach (var (part, onHand) in parts)
         {
-            var cells = Cells(part, onHand);
+            var cells = CellsOf(part);
+            cells[C.Quantity] = CsvCells.WholeNumber(onHand);
             foreach (var column in C.All)
                 csv.WriteField(CsvCells.Neutralise(cells.GetValueOrDefault(column, "")));
             csv.NextRecord();
         }
     }
 
-    private static Dictionary<string, string> Cells(Part p, int onHand)
+    /// <summary>A part's cells as the export writes them before neutralising, without the quantity.</summary>
+    public static Dictionary<string, string> CellsOf(Part p)
     {
         var cells = new Dictionary<string, string>
         {
@@ -36,7 +38,6 @@ public static class PartCsvWriter
             [C.Kind] = PartKinds.Name(p.Kind),
             [C.Description] = p.Description,
             [C.Package] = p.Package,
-            [C.Quantity] = CsvCells.WholeNumber(onHand),
             [C.UnitCost] = CsvCells.Number(p.UnitCost),
             [C.Currency] = p.Currency,
             [C.ReorderLevel] = CsvCells.WholeNumber(p.ReorderLevel),

@@ -14,7 +14,7 @@ public sealed record ImportOutcome(ImportReport? Report, IReadOnlyList<CsvLineEr
 /// <summary>
 /// Upserts a CSV file by part number, all or nothing, in ONE transaction. A new part's quantity is booked
 /// as a receipt, an existing part's as an adjustment by the difference (reason "import"); a blank quantity
-/// leaves an existing part's stock alone. A dry run does all the work and rolls it back.
+/// leaves an existing part's stock alone, as a column the file leaves out leaves that field. A dry run does all the work and rolls it back.
 /// </summary>
 public static class PartImporter
 {
@@ -23,15 +23,11 @@ public static class PartImporter
     public static async Task<ImportOutcome> ImportAsync(PartsOptDbContext db, TextReader text, bool dryRun,
         string actor, DateTime atUtc, CancellationToken ct)
     {
-        var read = PartCsvReader.Read(text);
-        var errors = read.Errors.ToList();
-
+        // A small firm's stock fits in memory; loading it inside the transaction keeps the upsert consistent.
         await using var transaction = await db.Database.BeginTransactionAsync(ct);
-        var numbers = read.Rows.Select(r => r.Input.PartNumber!).ToList();
-        var existing = new Dictionary<string, Part>(StringComparer.OrdinalIgnoreCase);
-        foreach (var chunk in numbers.Chunk(500)) // SQLite limits the parameters of one statement
-            foreach (var part in await db.Parts.Where(p => chunk.Contains(p.PartNumber)).ToListAsync(ct))
-                existing[part.PartNumber] = part;
+        var existing = (await db.Parts.ToListAsync(ct)).ToDictionary(p => p.PartNumber, StringComparer.OrdinalIgnoreCase);
+        var read = PartCsvReader.Read(text, number => existing.GetValueOrDefault(number));
+        var errors = read.Errors.ToList();
 
         var created = new List<string>();
         var updated = new List<string>();
@@ -54,12 +50,6 @@ public static class PartImporter
                 continue;
             }
 
-            if (PartKinds.Parse(row.Input.Kind) != part.Kind)
-            {
-                errors.Add(new(row.Line, PartCsvColumns.Kind, row.Input.Kind!,
-                    $"'{part.PartNumber}' is a {PartKinds.Name(part.Kind)} in stock; a kind cannot change."));
-                continue;
-            }
             row.Input.ApplyTo(part);
             db.ChangeTracker.DetectChanges();
             var changed = db.Entry(part).State == EntityState.Modified;
