@@ -6,6 +6,11 @@ using PartsOpt.Api.Problems;
 
 var builder = WebApplication.CreateBuilder(args);
 
+// Loopback port 5080 unless URLs are given (ASPNETCORE_URLS, --urls); a default in appsettings.json
+// would override the environment variable, which the container image sets.
+if (string.IsNullOrEmpty(builder.Configuration["urls"]))
+    builder.WebHost.UseUrls("http://127.0.0.1:5080");
+
 // Errors are RFC 9457 problem details: binding failures are thrown (not answered with a bare 400) so the
 // one exception handler can name the field.
 builder.Services.AddProblemDetails();
