@@ -130,4 +130,20 @@ public sealed class MovementsTests : IClassFixture<StockFactory>
         Assert.Equal(5, second!.Total);
         Assert.Equal([3, 2], second.Items.Select(m => m.OnHandChange)); // newest first: 5 4 | 3 2 | 1
     }
+
+    [Fact]
+    public async Task Concurrent_adjustments_cannot_together_take_stock_below_zero()
+    {
+        await _client.CreatePart(Api.Resistor("R-RACE-1", 100, initialQuantity: 10));
+        // Twelve clients each take 2 of 10 at once: the check and the booking are one transaction, so
+        // exactly five succeed and the rest are refused, whatever the interleaving.
+        var responses = await Task.WhenAll(Enumerable.Range(0, 12).Select(_ =>
+            _factory.CreateClient().PostAsJsonAsync("/api/v1/parts/R-RACE-1/movements",
+                new { kind = "adjustment", quantity = -2, reason = "race" })));
+
+        Assert.Equal(5, responses.Count(r => r.StatusCode == HttpStatusCode.Created));
+        Assert.Equal(7, responses.Count(r => r.StatusCode == HttpStatusCode.Conflict));
+        Assert.Equal(0, (await _client.GetPart("R-RACE-1")).QuantityOnHand);
+        Assert.Equal(0, await _factory.LedgerSumAsync("R-RACE-1"));
+    }
 }
