@@ -1,8 +1,42 @@
+using System.Text.Json.Serialization;
+using PartsOpt.Api.Health;
+using PartsOpt.Api.Parts;
+using PartsOpt.Api.Persistence;
+using PartsOpt.Api.Problems;
+
 var builder = WebApplication.CreateBuilder(args);
+
+// Loopback port 5080 unless URLs are given (ASPNETCORE_URLS, --urls); a default in appsettings.json
+// would override the environment variable, which the container image sets.
+if (string.IsNullOrEmpty(builder.Configuration["urls"]))
+    builder.WebHost.UseUrls("http://127.0.0.1:5080");
+
+// Errors are RFC 9457 problem details: binding failures are thrown (not answered with a bare 400) so the
+// one exception handler can name the field.
+builder.Services.AddProblemDetails();
+builder.Services.AddExceptionHandler<ProblemExceptionHandler>();
+builder.Services.Configure<RouteHandlerOptions>(options => options.ThrowOnBadRequest = true);
+builder.Services.ConfigureHttpJsonOptions(options =>
+    options.SerializerOptions.DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull);
+
+builder.Services.AddPartsOptDatabase();
+builder.Services.AddSingleton(TimeProvider.System);
+builder.Services.AddEndpointsApiExplorer();
+builder.Services.AddSwaggerGen();
+
 var app = builder.Build();
 
-app.MapGet("/health", () => Results.Ok(new { status = "ok" }));
+app.UseExceptionHandler();
+app.UseStatusCodePages();
+app.UseSwagger();
+app.UseSwaggerUI();
 
-app.Run();
+await app.InitialiseDatabaseAsync();
 
+app.MapHealth();
+app.MapParts();
+
+await app.RunAsync();
+
+/// <summary>Visible to the integration tests' WebApplicationFactory.</summary>
 public partial class Program;
