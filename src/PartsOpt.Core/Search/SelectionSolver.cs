@@ -222,6 +222,11 @@ internal sealed class SelectionSolver
                         sum.AddTerm(vars[i], term.Coefficient * (long)Math.Round(logs[i] * LogScale));
             }
             // Each rounded term is within half a step: widen by one step per term, outward.
+            if (double.IsNegativeInfinity(bound.Upper) || bound.Lower > bound.Upper)
+            {
+                model.AddBoolOr([]); // no value can meet this bound: the variant has no design
+                continue;
+            }
             var slack = bound.Terms.Count;
             var lower = double.IsNegativeInfinity(bound.Lower) ? long.MinValue / 4 : (long)Math.Floor(bound.Lower * LogScale) - slack;
             var upper = double.IsPositiveInfinity(bound.Upper) ? long.MaxValue / 4 : (long)Math.Ceiling(bound.Upper * LogScale) + slack;

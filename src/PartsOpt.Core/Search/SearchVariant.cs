@@ -1,0 +1,134 @@
+using PartsOpt.Topologies;
+
+namespace PartsOpt.Search;
+
+/// <summary>
+/// One topology with one op-amp assignment (the amplifier for the analog sections, an optional separate
+/// comparator part, and with a single supply whether a spare section buffers the reference): its roles
+/// as slots over the stock choices, its op-amp packages as fixed draws, the decoupling capacitors as one
+/// more slot, and the log-space bounds of <see cref="FrequencyRelaxation"/>.
+/// </summary>
+internal sealed class SearchVariant
+{
+    /// <summary>Name of the slot holding the decoupling capacitors (one per op-amp package).</summary>
+    public const string DecouplingSlot = "decoupling";
+
+    public SearchVariant(SearchContext context, TopologyKind topology, int amplifier, int? comparator, bool bufferReference)
+    {
+        Context = context;
+        Topology = topology;
+        AmplifierIndex = amplifier;
+        ComparatorIndex = comparator;
+        BufferReference = bufferReference;
+        var requirement = context.Requirement;
+        var amp = context.Stock.OpAmps[amplifier];
+        var cmp = comparator is { } c ? context.Stock.OpAmps[c] : null;
+        Prototype = new CircuitDesign(topology, requirement.Supply, amp.Spec with { PartNumber = amp.PartNumber },
+            new Dictionary<string, RolePart>(), requirement.Duty.ToDutyControl(),
+            cmp is null ? null : cmp.Spec with { PartNumber = cmp.PartNumber }, bufferReference);
+        RoleNames = Prototype.RequiredRoles();
+
+        Functions = (topology == TopologyKind.RcRamp ? 1 : 2) + (cmp is null ? 1 : 0) + (bufferReference ? 1 : 0);
+        AmplifierPackages = (Functions + amp.Spec.SectionsPerPackage - 1) / amp.Spec.SectionsPerPackage;
+        var fixedDraws = new List<PartDraw> { new(context.OpAmpLine(amplifier), AmplifierPackages) };
+        if (comparator is { } cl)
+            fixedDraws.Add(new PartDraw(context.OpAmpLine(cl), 1));
+        Packages = AmplifierPackages + (cmp is null ? 0 : 1);
+
+        var slots = RoleNames
+            .Select(role => new SelectionSlot(role, context.Options.For(role).Select(RoleOptions.ToOption).ToList()))
+            .ToList();
+        DecouplingChoices = context.DecouplingCapacitors;
+        if (DecouplingChoices.Count > 0)
+            slots.Add(new SelectionSlot(DecouplingSlot, DecouplingChoices
+                .Select(i => new SlotOption([new PartDraw(i, Packages)], 0, i)).ToList()));
+
+        var relaxation = FrequencyRelaxation.For(this, slots);
+        Problem = new SelectionProblem
+        {
+            Lines = context.Lines,
+            Slots = slots,
+            FixedDraws = fixedDraws,
+            Groups = relaxation.Groups,
+            Bounds = relaxation.Bounds,
+            BuildQuantity = requirement.BuildQuantity,
+            Costs = requirement.Costs,
+        };
+    }
+
+    public SearchContext Context { get; }
+    public TopologyKind Topology { get; }
+    public int AmplifierIndex { get; }
+    public int? ComparatorIndex { get; }
+    public bool BufferReference { get; }
+
+    /// <summary>The design without its role parts: topology, supply, op-amps, duty control.</summary>
+    public CircuitDesign Prototype { get; }
+
+    /// <summary>The roles to fill, in role order; slot i is role i, the decoupling slot (if any) comes last.</summary>
+    public IReadOnlyList<string> RoleNames { get; }
+
+    /// <summary>Op-amp functions on the amplifier part (oscillator or Schmitt, integrator, comparator, buffer).</summary>
+    public int Functions { get; }
+
+    public int AmplifierPackages { get; }
+    public int Packages { get; }
+
+    /// <summary>Stock line indices of the capacitors fit for decoupling, cheapest first.</summary>
+    public IReadOnlyList<int> DecouplingChoices { get; }
+
+    public SelectionProblem Problem { get; }
+
+    /// <summary>A short name for reports: "three-stage, amplifier TL074, comparator LM393".</summary>
+    public string Describe() =>
+        $"{Topology.ToWireName()} with {Context.Stock.OpAmps[AmplifierIndex].PartNumber}" +
+        (ComparatorIndex is { } c ? $" and comparator {Context.Stock.OpAmps[c].PartNumber}" : "") +
+        (BufferReference ? ", buffered reference" : "");
+
+    /// <summary>The slot index of a role, or −1 when the variant has no such role.</summary>
+    public int SlotOf(string role)
+    {
+        for (var i = 0; i < RoleNames.Count; i++)
+            if (RoleNames[i] == role)
+                return i;
+        return -1;
+    }
+
+    /// <summary>The role slots (decoupling excluded): what makes two designs different circuits.</summary>
+    public IReadOnlyList<int> RoleSlots => Enumerable.Range(0, RoleNames.Count).ToList();
+
+    /// <summary>The stock choice in each role for an assignment.</summary>
+    public IReadOnlyDictionary<string, StockChoice> ChoicesOf(IReadOnlyList<int> choice) =>
+        RoleNames.Select((role, s) => (role, option: (StockChoice)Problem.Slots[s].Options[choice[s]].Tag!))
+            .ToDictionary(x => x.role, x => x.option);
+
+    /// <summary>The circuit of an assignment.</summary>
+    public CircuitDesign DesignOf(IReadOnlyList<int> choice) =>
+        Prototype with
+        {
+            Roles = ChoicesOf(choice).ToDictionary(kv => kv.Key, kv => kv.Value.ToRolePart()),
+        };
+
+    /// <summary>
+    /// The slots a missed target depends on, from the engine's model: frequency on the square-wave
+    /// generator's own parts and the reference divider; ramp amplitude also on the integrator; output
+    /// levels only on the comparator's pull-up; the duty range and the checks on every role.
+    /// </summary>
+    public IReadOnlyList<int> ScopeOf(MissedTarget missed)
+    {
+        string[] reference = [Roles.RefRtop, Roles.RefRbottom];
+        string[] oscillator = [Roles.OscR, Roles.OscC, Roles.OscR1, Roles.OscR2];
+        string[] loop = [Roles.IntR, Roles.IntC, Roles.SchR1, Roles.SchR2];
+        IEnumerable<string>? roles = (missed, Topology) switch
+        {
+            (MissedTarget.Frequency, TopologyKind.Loop) => loop.Concat(reference),
+            (MissedTarget.Frequency, _) => oscillator.Concat(reference),
+            (MissedTarget.TriangleAmplitude, TopologyKind.Loop) => loop.Concat(reference),
+            (MissedTarget.TriangleAmplitude, TopologyKind.RcRamp) => oscillator.Concat(reference),
+            (MissedTarget.TriangleAmplitude, _) => oscillator.Concat([Roles.IntR, Roles.IntC, Roles.IntRf]).Concat(reference),
+            (MissedTarget.OutputLevels, _) => [Roles.CmpPullup],
+            _ => null,
+        };
+        return roles is null ? RoleSlots : roles.Select(SlotOf).Where(s => s >= 0).ToList();
+    }
+}
