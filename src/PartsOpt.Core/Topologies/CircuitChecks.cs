@@ -1,0 +1,206 @@
+using System.Globalization;
+
+namespace PartsOpt.Topologies;
+
+/// <summary>
+/// The checks of a design's operation: supply, oscillation, common-mode ranges, slew, output currents,
+/// swing, duty range, overdrive and edges. Part ratings are in <see cref="PartRatingChecks"/>.
+/// </summary>
+internal static class CircuitChecks
+{
+    /// <summary>Integrator slope limit as a share of the slew rate (common practice: stay well below it).</summary>
+    public const double SlewShare = 0.5;
+
+    /// <summary>Output edges (rise plus fall) as a share of the period at most (common practice).</summary>
+    public const double EdgeShareOfPeriod = 0.05;
+
+    /// <summary>Comparator overdrive wanted beyond the input offset, V (common practice).</summary>
+    public const double OverdriveV = 0.010;
+
+    /// <summary>Hysteresis wanted, in input offsets (common practice).</summary>
+    public const double HysteresisOffsets = 4;
+
+    /// <summary>Frequency at most this share of the gain-bandwidth product (common practice).</summary>
+    public const double BandwidthShare = 0.01;
+
+    public static List<CircuitCheck> All(CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w)
+    {
+        var checks = new List<CircuitCheck>();
+        SupplyRange(checks, design.Amplifier, "amplifier", design.Supply);
+        if (design.Comparator is { } separate)
+            SupplyRange(checks, separate, "comparator", design.Supply);
+        CanSwitch(checks, design, shape, in v, in w);
+        if (w.Oscillates)
+        {
+            CommonMode(checks, design, in w);
+            Operation(checks, design, in v, in w);
+            OutputCurrents(checks, design, shape, in v, in w);
+        }
+
+        PartRatingChecks.Add(checks, design, shape, in v, in w);
+        return checks;
+    }
+
+    private static void SupplyRange(List<CircuitCheck> checks, OpAmpSpec part, string which, Supply supply)
+    {
+        var span = supply.SpanV;
+        var margin = Math.Min(span - part.SupplyMinV, part.SupplyMaxV - span);
+        checks.Add(Check($"supply range ({which})", margin, "V",
+            F($"The supply gives {span:G4} V across the rails; the {which} part is rated for {part.SupplyMinV:G4}…{part.SupplyMaxV:G4} V.")));
+    }
+
+    private static void CanSwitch(List<CircuitCheck> checks, CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w)
+    {
+        double lp = w.LevelHighRel, lm = w.LevelLowRel;
+        if (!(lp > 0 && lm < 0))
+        {
+            checks.Add(Check("oscillator can switch", Math.Min(lp, -lm), "V",
+                F($"The op-amp's output swings {lm + w.ReferenceV:G4}…{lp + w.ReferenceV:G4} V, which does not straddle the reference {w.ReferenceV:G4} V.")));
+            return;
+        }
+
+        if (design.Topology == TopologyKind.Loop)
+        {
+            var k = v.SchR1 / v.SchR2;
+            var margin = Math.Min(-lm - k * lp, lp + k * lm);
+            checks.Add(Check("oscillator can switch", margin, "V",
+                F($"The Schmitt thresholds {-k * lp:G4} V and {-k * lm:G4} V (sch.r1/sch.r2 = {k:G4}, needs sch.r1 < sch.r2) ") +
+                F($"must lie inside the integrator's swing {lm:G4}…{lp:G4} V about the reference.")));
+            var hysteresis = k * (lp - lm);
+            checks.Add(Check("hysteresis above offset", hysteresis - HysteresisOffsets * shape.AmpOffsetV, "V",
+                F($"Hysteresis {hysteresis:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V (common practice)."),
+                CheckSeverity.Warning));
+            return;
+        }
+
+        var beta = v.OscR2 / (v.OscR1 + v.OscR2);
+        var inside = (1 - beta) * Math.Min(lp, -lm) - shape.AmpOffsetV;
+        checks.Add(Check("oscillator can switch", inside, "V",
+            F($"The thresholds β·L± ({beta * lm:G4} V, {beta * lp:G4} V about the reference, β = {beta:G4}) must lie inside ") +
+            F($"the output swing {lm:G4}…{lp:G4} V by more than the input offset.")));
+        var hyst = beta * (lp - lm);
+        checks.Add(Check("hysteresis above offset", hyst - HysteresisOffsets * shape.AmpOffsetV, "V",
+            F($"Hysteresis {hyst:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V (common practice)."),
+            CheckSeverity.Warning));
+    }
+
+    private static void CommonMode(List<CircuitCheck> checks, CircuitDesign design, in Waveform w)
+    {
+        var r = w.ReferenceV;
+        if (design.Topology == TopologyKind.Loop)
+        {
+            InputRange(checks, design, design.Amplifier, "schmitt", Math.Min(r, r + w.SchmittNodeMinRel), Math.Max(r, r + w.SchmittNodeMaxRel));
+        }
+        else
+        {
+            InputRange(checks, design, design.Amplifier, "oscillator", r + w.Ratio * w.LevelLowRel, r + w.Ratio * w.LevelHighRel);
+        }
+
+        if (design.Topology != TopologyKind.RcRamp)
+            InputRange(checks, design, design.Amplifier, "integrator", r, r);
+        InputRange(checks, design, design.ComparatorPart, "comparator",
+            Math.Min(w.RampMinV, w.ThresholdMinV), Math.Max(w.RampMaxV, w.ThresholdMaxV));
+        if (design.BufferReference)
+            InputRange(checks, design, design.Amplifier, "reference buffer", r, r);
+    }
+
+    private static void InputRange(List<CircuitCheck> checks, CircuitDesign design, OpAmpSpec part, string section, double lowV, double highV)
+    {
+        var floor = design.Supply.NegativeV + part.InputHeadroomLowV;
+        var ceiling = design.Supply.PositiveV - part.InputHeadroomHighV;
+        checks.Add(Check($"input common-mode range ({section})", Math.Min(lowV - floor, ceiling - highV), "V",
+            F($"The {section} inputs see {lowV:G4}…{highV:G4} V; the part accepts {floor:G4}…{ceiling:G4} V.")));
+    }
+
+    private static void Operation(List<CircuitCheck> checks, CircuitDesign design, in CircuitValues v, in Waveform w)
+    {
+        if (design.Topology != TopologyKind.RcRamp)
+        {
+            var limit = SlewShare * v.AmpSlewRate;
+            checks.Add(Check("integrator slope below slew rate", 1 - w.IntegratorSlopeMax / limit, "1",
+                F($"The integrator ramps at up to {w.IntegratorSlopeMax:G4} V/s; keep it below {SlewShare:P0} of the slew rate, {limit:G4} V/s (common practice).")));
+            var top = design.Supply.PositiveV - v.AmpHeadroomHigh;
+            var bottom = design.Supply.NegativeV + v.AmpHeadroomLow;
+            checks.Add(Check("triangle inside integrator swing", Math.Min(top - w.RampMaxV, w.RampMinV - bottom), "V",
+                F($"The triangle spans {w.RampMinV:G4}…{w.RampMaxV:G4} V; the integrator swings {bottom:G4}…{top:G4} V.")));
+        }
+
+        var frequency = 1 / w.PeriodS;
+        var bandwidth = BandwidthShare * design.Amplifier.GainBandwidthHz;
+        checks.Add(Check("frequency well below gain-bandwidth", 1 - frequency / bandwidth, "1",
+            F($"{frequency:G4} Hz against {BandwidthShare:P0} of the gain-bandwidth product, {bandwidth:G4} Hz (common practice)."),
+            CheckSeverity.Warning));
+
+        double low = w.ThresholdMinV, high = w.ThresholdMaxV, rampLow = w.RampMinV, rampHigh = w.RampMaxV;
+        checks.Add(Check("duty adjustable", Math.Min(high - rampLow, rampHigh - low), "V",
+            F($"The threshold range {low:G4}…{high:G4} V must overlap the ramp {rampLow:G4}…{rampHigh:G4} V, or the output never switches.")));
+        checks.Add(Check("threshold range inside the ramp", Math.Min(low - rampLow, rampHigh - high), "V",
+            F($"Thresholds {low:G4}…{high:G4} V against the ramp {rampLow:G4}…{rampHigh:G4} V: settings beyond the ramp give a dead band at 0 % or 100 %."),
+            CheckSeverity.Warning));
+
+        // Overdrive matters only at an end where the threshold lies inside the ramp (elsewhere the output rests).
+        var wanted = OverdriveV + design.ComparatorPart.InputOffsetV;
+        var overdrive = double.PositiveInfinity;
+        if (low > rampLow && low < rampHigh)
+            overdrive = Math.Min(overdrive, low - rampLow);
+        if (high > rampLow && high < rampHigh)
+            overdrive = Math.Min(overdrive, rampHigh - high);
+        if (double.IsFinite(overdrive))
+            checks.Add(Check("comparator overdrive", overdrive - wanted, "V",
+                F($"At the duty extremes the ramp passes the threshold by {overdrive:G4} V; want {OverdriveV:G2} V plus the input offset (common practice)."),
+                CheckSeverity.Warning));
+
+        var edges = 2 * w.EdgeTimeS;
+        checks.Add(Check("output edges short against the period", 1 - edges / (EdgeShareOfPeriod * w.PeriodS), "1",
+            F($"Rise plus fall {edges:G4} s against {EdgeShareOfPeriod:P0} of the period {w.PeriodS:G4} s (common practice).")));
+
+        var shortest = double.PositiveInfinity;
+        foreach (var duty in (ReadOnlySpan<double>)[w.DutyMin, w.DutyMax])
+        {
+            if (duty > 0 && duty < 1)
+                shortest = Math.Min(shortest, Math.Min(duty, 1 - duty) * w.PeriodS);
+        }
+
+        if (double.IsFinite(shortest))
+            checks.Add(Check("shortest pulse reaches full swing", shortest / edges - 1, "1",
+                F($"The shortest pulse at the duty extremes lasts {shortest:G4} s; it reaches full swing only if longer than rise plus fall, {edges:G4} s."),
+                CheckSeverity.Warning));
+    }
+
+    private static void OutputCurrents(List<CircuitCheck> checks, CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w)
+    {
+        double lp = w.LevelHighRel, lm = w.LevelLowRel, level = Math.Max(lp, -lm);
+        switch (design.Topology)
+        {
+            case TopologyKind.Loop:
+                var tap = Math.Max(w.RampMaxRel - lm, lp - w.RampMinRel) / (v.SchR1 + v.SchR2);
+                OutputCurrent(checks, design.Amplifier, "schmitt", level / v.IntR + tap);
+                OutputCurrent(checks, design.Amplifier, "integrator", level / v.IntR + tap);
+                break;
+            default:
+                var beta = w.Ratio;
+                var oscillator = Math.Max(lp - beta * lm, beta * lp - lm) / v.OscR + level / (v.OscR1 + v.OscR2);
+                if (design.Topology == TopologyKind.ThreeStage)
+                {
+                    oscillator += level / v.IntR;
+                    OutputCurrent(checks, design.Amplifier, "integrator", level / v.IntR);
+                }
+
+                OutputCurrent(checks, design.Amplifier, "oscillator", oscillator);
+                break;
+        }
+
+        if (shape.OpenDrain)
+            OutputCurrent(checks, design.ComparatorPart, "comparator", (shape.PositiveV - w.OutputLowV) / v.CmpPullup);
+    }
+
+    private static void OutputCurrent(List<CircuitCheck> checks, OpAmpSpec part, string section, double currentA) =>
+        checks.Add(Check($"output current ({section})", 1 - currentA / part.MaxOutputCurrentA, "1",
+            F($"The {section} output drives up to {currentA * 1e3:G4} mA into its networks; the part delivers {part.MaxOutputCurrentA * 1e3:G4} mA.")));
+
+    internal static CircuitCheck Check(string name, double margin, string unit, string reason,
+        CheckSeverity severity = CheckSeverity.Failure) =>
+        new(name, margin >= 0, margin, unit, reason, severity);
+
+    internal static string F(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
+}
