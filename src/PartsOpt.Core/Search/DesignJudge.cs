@@ -81,14 +81,20 @@ public static class DesignJudge
                 : Say($"the adjustment reaches duty {lowest:P1} … {highest:P1}, needs {duty.Min:P1} … {duty.Max:P1}"));
         }
 
+        var failedChecks = new List<string>();
         foreach (var check in evaluation.Checks.Where(c => !c.Passed && c.Severity == CheckSeverity.Failure))
         {
+            failedChecks.Add(check.Name);
             missed.Add(MissedTarget.Check);
             reasons.Add($"{check.Name}: {check.Reason}");
             shortfall += 1;
         }
 
-        return new DesignJudgement(evaluation, missed, reasons, frequencyError, margins.Min(), shortfall);
+        return new DesignJudgement(evaluation, missed, reasons, frequencyError, margins.Min(), failedChecks, shortfall)
+        {
+            MissesLowDuty = !(lowest <= duty.Min),
+            MissesHighDuty = !(highest >= duty.Max),
+        };
     }
 
     private static string Say(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);

@@ -36,6 +36,7 @@ public enum MissedTarget
 /// <param name="Reasons">Each miss in a designer's words, in the order of <paramref name="Missed"/>.</param>
 /// <param name="FrequencyError">|f − target| / target (infinite when the circuit does not oscillate).</param>
 /// <param name="Margin">Smallest slack of a banded figure, relative to its band (negative: outside).</param>
+/// <param name="FailedChecks">Names of the failure-severity checks that failed.</param>
 /// <param name="Shortfall">How far outside the bands, summed (relative excess per figure, 1 per failed
 /// check, 1 for a figure that does not exist): 0 when accepted; ranks near misses.</param>
 public sealed record DesignJudgement(
@@ -44,8 +45,15 @@ public sealed record DesignJudgement(
     IReadOnlyList<string> Reasons,
     double FrequencyError,
     double Margin,
+    IReadOnlyList<string> FailedChecks,
     double Shortfall)
 {
+    /// <summary>True when the lowest duty the adjustment reaches is above the required minimum.</summary>
+    public bool MissesLowDuty { get; init; }
+
+    /// <summary>True when the highest duty the adjustment reaches is below the required maximum.</summary>
+    public bool MissesHighDuty { get; init; }
+
     /// <summary>True when the design meets every band and passes every failure check.</summary>
     public bool Accepted => Missed.Count == 0;
 }

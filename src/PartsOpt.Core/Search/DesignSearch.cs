@@ -39,23 +39,26 @@ public static class DesignSearch
 
         var topologies = requirement.TopologiesToSearch();
         var plans = topologies.Select(t => VariantPlanner.Plan(context, t)).ToList();
-        var variantCount = plans.Sum(p => p.Variants.Count);
         var found = new List<(SearchVariant Variant, AcceptedChoice Choice)>();
         var tracker = new MissTracker();
         var solves = 0;
         var complete = plans.ToDictionary(p => p.Topology, _ => true);
-        var done = 0;
 
-        foreach (var plan in plans)
+        // First pass: each variant gets an even share of the time left. Second pass: variants that ran out
+        // start again with the time the quick ones left over.
+        var pending = plans.SelectMany(p => p.Variants).ToList();
+        var unfinished = new List<SearchVariant>();
+        var best = new Dictionary<TopologyKind, long>();
+        for (var pass = 0; pass < 2 && pending.Count > 0; pass++)
         {
-            long? topologyBest = null;
-            foreach (var variant in plan.Variants)
+            unfinished.Clear();
+            for (var i = 0; i < pending.Count; i++)
             {
-                var left = variantCount - done++;
+                var variant = pending[i];
                 var remaining = deadline - DateTime.UtcNow;
                 if (cancellation.IsCancellationRequested || remaining <= TimeSpan.Zero)
                 {
-                    complete[plan.Topology] = false;
+                    unfinished.Add(variant);
                     continue;
                 }
 
@@ -63,18 +66,23 @@ public static class DesignSearch
                 var run = solver.Run(
                     choice => Verify(variant, choice, options.YieldCheck, tracker),
                     requirement.MaxResults,
-                    Cutoff(found, requirement.MaxResults, topologyBest),
+                    Cutoff(found, requirement.MaxResults, best.TryGetValue(variant.Topology, out var b) ? b : null),
                     variant.RoleSlots,
-                    DateTime.UtcNow + remaining / left,
+                    DateTime.UtcNow + remaining / (pending.Count - i),
                     options.Seed,
                     cancellation);
                 solves += run.Solves;
-                complete[plan.Topology] &= run.Complete;
+                if (!run.Complete)
+                    unfinished.Add(variant);
+                found.RemoveAll(f => f.Variant == variant);
                 found.AddRange(run.Accepted.Select(a => (variant, a)));
                 if (run.Accepted.Count > 0)
-                    topologyBest = Math.Min(topologyBest ?? long.MaxValue, run.Accepted[0].Objective);
+                    best[variant.Topology] = Math.Min(best.GetValueOrDefault(variant.Topology, long.MaxValue), run.Accepted[0].Objective);
             }
+            pending = [.. unfinished];
         }
+        foreach (var variant in unfinished)
+            complete[variant.Topology] = false;
 
         var designs = DesignAssembler.Rank(found, requirement.MaxResults);
         var reports = plans.Select(p => InfeasibilityReport.For(p, designs, complete[p.Topology], tracker, context)).ToList();
@@ -123,9 +131,7 @@ public static class DesignSearch
         if (!judgement.Accepted)
         {
             tracker.Rejected(variant, choice, judgement);
-            var scope = judgement.Missed.Select(variant.ScopeOf).MinBy(s => s.Count)!;
-            return new SelectionVerdict(false, scope, judgement.FrequencyError, judgement.Margin,
-                string.Join("; ", judgement.Reasons), judgement);
+            return variant.Rejection(choice, judgement);
         }
 
         if (requirement.Yield is { } yield && yieldCheck is not null)

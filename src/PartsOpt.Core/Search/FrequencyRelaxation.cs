@@ -29,7 +29,7 @@ internal static class FrequencyRelaxation
         var supply = variant.Prototype.Supply;
         var amp = variant.Prototype.Amplifier;
         var band = variant.Context.Requirement.Frequency;
-        double periodMin = 1 / band.Max, periodMax = 1 / band.Min;
+        double periodMin = Math.Max(1 / band.Max, EdgeLimitedPeriod(variant.Prototype)), periodMax = 1 / band.Min;
         var edge = (supply.SpanV - amp.OutputHeadroomHighV - amp.OutputHeadroomLowV) / amp.SlewRateVPerS;
         var levels = new Levels(supply, amp);
         var groups = new List<TupleGroup>();
@@ -106,6 +106,18 @@ internal static class FrequencyRelaxation
         }
 
         return new Result(groups, bounds);
+    }
+
+    /// <summary>
+    /// The shortest period the engine's edge check lets pass: rise plus fall of the comparator output
+    /// (full swing over its slew rate) within <see cref="CircuitChecks.EdgeShareOfPeriod"/> of the period.
+    /// </summary>
+    private static double EdgeLimitedPeriod(CircuitDesign design)
+    {
+        var part = design.ComparatorPart;
+        var high = part.IsOpenDrain ? design.Supply.PositiveV : design.Supply.PositiveV - part.OutputHeadroomHighV;
+        var low = design.Supply.NegativeV + part.OutputHeadroomLowV;
+        return 2 * (high - low) / part.SlewRateVPerS / CircuitChecks.EdgeShareOfPeriod * (1 - 1e-9);
     }
 
     private static LogBound Impossible(string figure) => new(figure, [], 1, 0);

@@ -44,12 +44,19 @@ internal sealed class SearchVariant
                 .Select(i => new SlotOption([new PartDraw(i, Packages)], 0, i)).ToList()));
 
         var relaxation = FrequencyRelaxation.For(this, slots);
+        var groups = relaxation.Groups.ToList();
+        if (ThresholdDivider.For(this, slots) is { } divider)
+        {
+            Thresholds = divider;
+            ThresholdGroup = groups.Count;
+            groups.Add(divider.Group);
+        }
         Problem = new SelectionProblem
         {
             Lines = context.Lines,
             Slots = slots,
             FixedDraws = fixedDraws,
-            Groups = relaxation.Groups,
+            Groups = groups,
             Bounds = relaxation.Bounds,
             BuildQuantity = requirement.BuildQuantity,
             Costs = requirement.Costs,
@@ -78,6 +85,12 @@ internal sealed class SearchVariant
     public IReadOnlyList<int> DecouplingChoices { get; }
 
     public SelectionProblem Problem { get; }
+
+    /// <summary>The threshold divider's (cmp.ra, cmp.pot, cmp.rb) tuples and their threshold range, if built.</summary>
+    public ThresholdDivider? Thresholds { get; }
+
+    /// <summary>Index of the threshold divider's group in <see cref="Problem"/>, if built.</summary>
+    public int? ThresholdGroup { get; }
 
     /// <summary>A short name for reports: "three-stage, amplifier TL074, comparator LM393".</summary>
     public string Describe() =>
@@ -114,21 +127,78 @@ internal sealed class SearchVariant
     /// generator's own parts and the reference divider; ramp amplitude also on the integrator; output
     /// levels only on the comparator's pull-up; the duty range and the checks on every role.
     /// </summary>
-    public IReadOnlyList<int> ScopeOf(MissedTarget missed)
+    public IReadOnlyList<int> ScopeOf(MissedTarget missed) => missed switch
     {
-        string[] reference = [Roles.RefRtop, Roles.RefRbottom];
-        string[] oscillator = [Roles.OscR, Roles.OscC, Roles.OscR1, Roles.OscR2];
-        string[] loop = [Roles.IntR, Roles.IntC, Roles.SchR1, Roles.SchR2];
-        IEnumerable<string>? roles = (missed, Topology) switch
-        {
-            (MissedTarget.Frequency, TopologyKind.Loop) => loop.Concat(reference),
-            (MissedTarget.Frequency, _) => oscillator.Concat(reference),
-            (MissedTarget.TriangleAmplitude, TopologyKind.Loop) => loop.Concat(reference),
-            (MissedTarget.TriangleAmplitude, TopologyKind.RcRamp) => oscillator.Concat(reference),
-            (MissedTarget.TriangleAmplitude, _) => oscillator.Concat([Roles.IntR, Roles.IntC, Roles.IntRf]).Concat(reference),
-            (MissedTarget.OutputLevels, _) => [Roles.CmpPullup],
-            _ => null,
-        };
-        return roles is null ? RoleSlots : roles.Select(SlotOf).Where(s => s >= 0).ToList();
+        MissedTarget.Frequency => Slots(FrequencyRoles()),
+        MissedTarget.TriangleAmplitude => Slots(RampRoles()),
+        MissedTarget.OutputLevels => Slots([Roles.CmpPullup]),
+        _ => RoleSlots,
+    };
+
+    /// <summary>
+    /// The slots a failed check of the engine depends on (a superset, read from its formulas): the
+    /// switching and edge checks on the frequency roles, the integrator and input-range checks of the
+    /// analog sections on the ramp roles, a polarity check on its own role; anything else on every role.
+    /// </summary>
+    public IReadOnlyList<int> ScopeOfCheck(string check, DesignJudgement judgement) => check switch
+    {
+        "input common-mode range (comparator)" when RampOutsideComparatorRange(judgement) => Slots(RampRoles()),
+        "oscillator can switch" or "output edges short against the period" => Slots(FrequencyRoles()),
+        "integrator slope below slew rate" or "triangle inside integrator swing"
+            or "input common-mode range (oscillator)" or "input common-mode range (schmitt)"
+            or "input common-mode range (integrator)" or "input common-mode range (reference buffer)"
+            or "output current (oscillator)" or "output current (schmitt)" or "output current (integrator)"
+            => Slots(RampRoles()),
+        _ when check.StartsWith("non-polarised (", StringComparison.Ordinal) && SlotOf(check[15..^1]) is >= 0 and var s => [s],
+        _ => RoleSlots,
+    };
+
+    /// <summary>
+    /// The strongest valid no-good cut for a rejected design: the smallest scope among its misses; for a
+    /// duty range missed alone, the ramp roles plus an escape through the threshold divider's tuples that
+    /// reach further (duty falls monotonically as the threshold rises).
+    /// </summary>
+    public SelectionVerdict Rejection(int[] choice, DesignJudgement judgement)
+    {
+        var scopes = judgement.Missed.Where(m => m is not (MissedTarget.DutyRange or MissedTarget.Check)).Select(ScopeOf)
+            .Concat(judgement.FailedChecks.Select(c => ScopeOfCheck(c, judgement)))
+            .Append(RoleSlots);
+        var best = scopes.MinBy(scope => scope.Count)!;
+        var verdict = new SelectionVerdict(false, best, judgement.FrequencyError, judgement.Margin,
+            string.Join("; ", judgement.Reasons), judgement);
+        if (!judgement.Missed.Contains(MissedTarget.DutyRange) || best.Count < RoleSlots.Count)
+            return verdict;
+        var ramp = Slots(RampRoles());
+        if (Prototype.DutyControl is ControlVoltageDuty)
+            return verdict with { CutSlots = ramp };
+        if (Thresholds is null || ThresholdGroup is null)
+            return verdict;
+        var escape = Thresholds.Escape(choice, judgement.MissesLowDuty, judgement.MissesHighDuty);
+        return verdict with { CutSlots = ramp, CutGroup = ThresholdGroup, CutEscape = escape };
     }
+
+    /// <summary>True when the ramp alone leaves the comparator's input range (so any threshold fails too).</summary>
+    private bool RampOutsideComparatorRange(DesignJudgement judgement)
+    {
+        var evaluation = judgement.Evaluation;
+        if (evaluation.Figure(FigureNames.TriangleCentre) is not { } centre
+            || evaluation.Figure(FigureNames.TrianglePeakToPeak) is not { } peakToPeak)
+            return false;
+        var part = Prototype.ComparatorPart;
+        var supply = Prototype.Supply;
+        return centre - peakToPeak / 2 < supply.NegativeV + part.InputHeadroomLowV - 1e-9
+            || centre + peakToPeak / 2 > supply.PositiveV - part.InputHeadroomHighV + 1e-9;
+    }
+
+    /// <summary>Roles the frequency depends on: the square-wave generator's and the reference divider.</summary>
+    private string[] FrequencyRoles() => Topology == TopologyKind.Loop
+        ? [Roles.IntR, Roles.IntC, Roles.SchR1, Roles.SchR2, Roles.RefRtop, Roles.RefRbottom]
+        : [Roles.OscR, Roles.OscC, Roles.OscR1, Roles.OscR2, Roles.RefRtop, Roles.RefRbottom];
+
+    /// <summary>Roles the ramp the comparator sees depends on (frequency roles plus the three-stage integrator).</summary>
+    private string[] RampRoles() => Topology == TopologyKind.ThreeStage
+        ? [.. FrequencyRoles(), Roles.IntR, Roles.IntC, Roles.IntRf]
+        : FrequencyRoles();
+
+    private List<int> Slots(IEnumerable<string> roles) => roles.Select(SlotOf).Where(s => s >= 0).ToList();
 }

@@ -50,6 +50,9 @@ internal sealed class SelectionSolver
         model.Minimize(objective);
     }
 
+    /// <summary>Further CP-SAT parameters, appended to the time limit, workers and seed.</summary>
+    internal static string ExtraParameters { get; set; } = "";
+
     /// <summary>Integer objective units per unit of currency (a power of ten that makes every cost whole).</summary>
     public long CostScale { get; }
 
@@ -88,7 +91,7 @@ internal sealed class SelectionSolver
             var solver = new CpSolver
             {
                 StringParameters = string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                    $"max_time_in_seconds:{remaining:0.###}, num_workers:2, random_seed:{seed}"),
+                    $"max_time_in_seconds:{remaining:0.###}, num_workers:2, random_seed:{seed}{ExtraParameters}"),
             };
             CpSolverStatus status;
             using (cancellation.Register(solver.StopSearch))
@@ -123,7 +126,11 @@ internal sealed class SelectionSolver
             else
             {
                 rejections.Add((choice, verdict));
-                Forbid(choice, verdict.CutSlots ?? Enumerable.Range(0, chosen.Length).ToArray());
+                var slots = verdict.CutSlots ?? Enumerable.Range(0, chosen.Length).ToArray();
+                if (verdict is { CutGroup: { } group, CutEscape: { } escape })
+                    model.AddBoolOr(slots.Select(s => chosen[s][choice[s]].Not()).Concat(escape.Select(k => (ILiteral)groupVars[group][k])));
+                else
+                    Forbid(choice, slots);
             }
             if (status != CpSolverStatus.Optimal)
                 break; // time ran out inside the solve: what we have is not proved

@@ -16,7 +16,18 @@ internal sealed record SelectionVerdict(
     double FrequencyError = 0,
     double Margin = 0,
     string? Reason = null,
-    object? Payload = null);
+    object? Payload = null)
+{
+    /// <summary>
+    /// With <see cref="CutEscape"/>: a tuple group whose tuples may lift the cut. The cut then reads "not
+    /// these choices in <see cref="CutSlots"/>, unless one of the escape tuples is chosen": a monotone
+    /// figure (duty against threshold) rules out every tuple no better than the one that failed.
+    /// </summary>
+    public int? CutGroup { get; init; }
+
+    /// <summary>Tuples of <see cref="CutGroup"/> that escape the cut.</summary>
+    public IReadOnlyList<int>? CutEscape { get; init; }
+}
 
 /// <summary>An assignment the engine accepted, with its exact integer objective.</summary>
 internal sealed record AcceptedChoice(int[] Choice, long Objective, SelectionVerdict Verdict);
