@@ -63,6 +63,7 @@ public static class DesignSearch
                 }
 
                 var solver = new SelectionSolver(variant.Problem);
+                variant.SweptScopes.Clear();
                 var run = solver.Run(
                     choice => Verify(variant, choice, options.YieldCheck, tracker),
                     requirement.MaxResults,
@@ -131,7 +132,10 @@ public static class DesignSearch
         if (!judgement.Accepted)
         {
             tracker.Rejected(variant, choice, judgement);
-            return variant.Rejection(choice, judgement);
+            var rejection = variant.Rejection(choice, judgement);
+            return rejection.CutGroup is null && rejection.CutSlots is { } scope
+                ? rejection with { MoreCuts = ScopeSweep.Sweep(variant, choice, scope) }
+                : rejection;
         }
 
         if (requirement.Yield is { } yield && yieldCheck is not null)

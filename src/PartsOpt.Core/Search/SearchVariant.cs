@@ -86,6 +86,9 @@ internal sealed class SearchVariant
 
     public SelectionProblem Problem { get; }
 
+    /// <summary>Scopes already swept by <see cref="ScopeSweep"/> in this variant.</summary>
+    public HashSet<string> SweptScopes { get; } = [];
+
     /// <summary>The threshold divider's (cmp.ra, cmp.pot, cmp.rb) tuples and their threshold range, if built.</summary>
     public ThresholdDivider? Thresholds { get; }
 

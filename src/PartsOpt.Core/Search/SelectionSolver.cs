@@ -131,6 +131,8 @@ internal sealed class SelectionSolver
                     model.AddBoolOr(slots.Select(s => chosen[s][choice[s]].Not()).Concat(escape.Select(k => (ILiteral)groupVars[group][k])));
                 else
                     Forbid(choice, slots);
+                foreach (var (other, otherSlots) in verdict.MoreCuts)
+                    Forbid(other, otherSlots);
             }
             if (status != CpSolverStatus.Optimal)
                 break; // time ran out inside the solve: what we have is not proved

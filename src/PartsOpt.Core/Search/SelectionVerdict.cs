@@ -27,6 +27,12 @@ internal sealed record SelectionVerdict(
 
     /// <summary>Tuples of <see cref="CutGroup"/> that escape the cut.</summary>
     public IReadOnlyList<int>? CutEscape { get; init; }
+
+    /// <summary>
+    /// Further no-good cuts the verifier found while it was at it (other assignments of the same slots it
+    /// judged and rejected for a reason confined to those slots): each forbids its choices in its slots.
+    /// </summary>
+    public IReadOnlyList<(int[] Choice, IReadOnlyList<int> Slots)> MoreCuts { get; init; } = [];
 }
 
 /// <summary>An assignment the engine accepted, with its exact integer objective.</summary>

@@ -5,15 +5,14 @@ namespace PartsOpt.Tests.Search;
 
 public class ScratchTests(ITestOutputHelper output)
 {
-    [Fact]
-    public void Headline()
+    [Theory]
+    [InlineData(12)]
+    [InlineData(3)]
+    [InlineData(6)]
+    public void Seed(int seed)
     {
-        var outcome = DesignSearch.Run(TestStock.PwmAt20Kilohertz(), TestStock.Stockroom(), new SearchOptions(TimeSpan.FromSeconds(120)));
-        output.WriteLine($"{outcome.Status} solves={outcome.Solves} elapsed={outcome.Elapsed}");
-        foreach (var d in outcome.Designs)
-            output.WriteLine($"{d.Rank} {d.Topology} {d.Cost.PerBoard} f={d.Evaluation.Figure("frequency")} {d.Design.Amplifier.PartNumber}/{d.Design.Comparator?.PartNumber} {string.Join(",", d.RoleParts.Select(kv => kv.Key + "=" + string.Join("+", kv.Value)))} | {string.Join(" / ", d.Bom.Select(b => b.PartNumber + "x" + b.PerBoard))}");
-        foreach (var t in outcome.Topologies)
-            output.WriteLine($"{t.Topology} feasible={t.Feasible} proved={t.Proved} {t.Blocking} {t.PurchaseHint}");
-        foreach (var n in outcome.Notes) output.WriteLine(n);
+        var (requirement, stock) = RandomStockExactnessTests.Case(seed);
+        var outcome = DesignSearch.Run(requirement, stock, new SearchOptions(TimeSpan.FromSeconds(100), Seed: seed));
+        output.WriteLine($"{seed}: {outcome.Status} solves={outcome.Solves} elapsed={outcome.Elapsed}");
     }
 }
