@@ -1,0 +1,154 @@
+using System.Diagnostics;
+using PartsOpt.Topologies;
+
+namespace PartsOpt.Search;
+
+/// <summary>
+/// Finds the cheapest designs the stockroom can build that meet a requirement, across every topology and
+/// op-amp assignment: one CP-SAT selection model per topology × assignment, each run in the lazy
+/// verification loop of <see cref="SelectionSolver"/> (see docs/search-model.md).
+/// </summary>
+public static class DesignSearch
+{
+    /// <summary>
+    /// Searches <paramref name="stock"/> for designs meeting <paramref name="requirement"/>, cheapest per
+    /// board first; the best design of every feasible topology is always in the list. Deterministic for the
+    /// same stock and requirement when the search completes within the time limit.
+    /// </summary>
+    /// <param name="requirement">What to build.</param>
+    /// <param name="stock">What the stockroom holds.</param>
+    /// <param name="options">Time limit, seed and yield check; defaults when null.</param>
+    /// <param name="cancellation">Stops the search; the outcome then holds what was found so far.</param>
+    /// <exception cref="ArgumentException">The requirement is not meaningful (names the field).</exception>
+    public static SearchOutcome Run(SearchRequirement requirement, Stock stock, SearchOptions? options = null,
+        CancellationToken cancellation = default)
+    {
+        ArgumentNullException.ThrowIfNull(requirement);
+        ArgumentNullException.ThrowIfNull(stock);
+        RequirementRules.Validate(requirement);
+        options ??= new SearchOptions();
+        var clock = Stopwatch.StartNew();
+        var deadline = DateTime.UtcNow + options.EffectiveTimeLimit;
+        var context = new SearchContext(requirement, stock);
+        var notes = new List<string>();
+        if (requirement.Yield is not null && options.YieldCheck is null)
+            notes.Add("A yield target was given but no yield check was supplied: designs are judged on nominal values only.");
+        if (context.DecouplingCapacitors.Count == 0)
+            notes.Add("No stocked capacitor fits supply decoupling (ceramic, 100 nF … 1 µF, rated for the supply): " +
+                "buy one 100 nF X7R per op-amp package per board.");
+
+        var topologies = requirement.TopologiesToSearch();
+        var plans = topologies.Select(t => VariantPlanner.Plan(context, t)).ToList();
+        var found = new List<(SearchVariant Variant, AcceptedChoice Choice)>();
+        var tracker = new MissTracker();
+        var solves = 0;
+        var complete = plans.ToDictionary(p => p.Topology, _ => true);
+
+        // First pass: each variant gets an even share of the time left. Second pass: variants that ran out
+        // start again with the time the quick ones left over.
+        var pending = plans.SelectMany(p => p.Variants).ToList();
+        var unfinished = new List<SearchVariant>();
+        var best = new Dictionary<TopologyKind, long>();
+        for (var pass = 0; pass < 2 && pending.Count > 0; pass++)
+        {
+            unfinished.Clear();
+            for (var i = 0; i < pending.Count; i++)
+            {
+                var variant = pending[i];
+                var remaining = deadline - DateTime.UtcNow;
+                if (cancellation.IsCancellationRequested || remaining <= TimeSpan.Zero)
+                {
+                    unfinished.Add(variant);
+                    continue;
+                }
+
+                var solver = new SelectionSolver(variant.Problem);
+                variant.SweptScopes.Clear();
+                var run = solver.Run(
+                    choice => Verify(variant, choice, options.YieldCheck, tracker),
+                    requirement.MaxResults,
+                    Cutoff(found, requirement.MaxResults, best.TryGetValue(variant.Topology, out var b) ? b : null),
+                    variant.RoleSlots,
+                    DateTime.UtcNow + remaining / (pending.Count - i),
+                    options.Seed,
+                    cancellation);
+                solves += run.Solves;
+                if (!run.Complete)
+                    unfinished.Add(variant);
+                found.RemoveAll(f => f.Variant == variant);
+                found.AddRange(run.Accepted.Select(a => (variant, a)));
+                if (run.Accepted.Count > 0)
+                    best[variant.Topology] = Math.Min(best.GetValueOrDefault(variant.Topology, long.MaxValue), run.Accepted[0].Objective);
+            }
+            pending = [.. unfinished];
+        }
+        foreach (var variant in unfinished)
+            complete[variant.Topology] = false;
+
+        var designs = DesignAssembler.Rank(found, requirement.MaxResults);
+        var reports = plans.Select(p => InfeasibilityReport.For(p, designs, complete[p.Topology], tracker, context)).ToList();
+        var proved = complete.Values.All(c => c);
+        if (!proved)
+            notes.Add(cancellation.IsCancellationRequested
+                ? "The search was cancelled before it finished: the list may miss cheaper designs."
+                : "The time limit ran out before the search finished: the list may miss cheaper designs.");
+        var status = (designs.Count > 0, proved) switch
+        {
+            (true, true) => SearchStatus.Optimal,
+            (true, false) => SearchStatus.Feasible,
+            (false, true) => SearchStatus.Infeasible,
+            _ => SearchStatus.Unknown,
+        };
+        return new SearchOutcome(status, designs, reports, solves, clock.Elapsed, notes);
+    }
+
+    /// <summary>
+    /// Designs dearer than both the current K-th design overall and this topology's best so far cannot
+    /// enter the list: the model may drop them.
+    /// </summary>
+    private static long? Cutoff(List<(SearchVariant Variant, AcceptedChoice Choice)> found, int wanted, long? topologyBest)
+    {
+        if (topologyBest is null || found.Count < wanted)
+            return null;
+        var kth = found.Select(f => f.Choice.Objective).Order().ElementAt(wanted - 1);
+        return Math.Max(kth, topologyBest.Value);
+    }
+
+    private static SelectionVerdict Verify(SearchVariant variant, int[] choice, IYieldCheck? yieldCheck, MissTracker tracker)
+    {
+        var requirement = variant.Context.Requirement;
+        var design = variant.DesignOf(choice);
+        DesignJudgement judgement;
+        try
+        {
+            judgement = DesignJudge.Judge(requirement, design);
+        }
+        catch (DesignValidationException invalid)
+        {
+            tracker.Invalid(variant, invalid.Message);
+            return new SelectionVerdict(false, variant.RoleSlots, Reason: invalid.Message);
+        }
+
+        if (!judgement.Accepted)
+        {
+            tracker.Rejected(variant, choice, judgement);
+            var rejection = variant.Rejection(choice, judgement);
+            return rejection.CutGroup is null && rejection.CutSlots is { } scope
+                ? rejection with { MoreCuts = ScopeSweep.Sweep(variant, choice, scope) }
+                : rejection;
+        }
+
+        if (requirement.Yield is { } yield && yieldCheck is not null)
+        {
+            var result = yieldCheck.Estimate(requirement, design);
+            if (result.Yield < yield.Target)
+            {
+                tracker.YieldShort(variant, result.Detail);
+                return new SelectionVerdict(false, variant.RoleSlots, judgement.FrequencyError, judgement.Margin,
+                    result.Detail, judgement);
+            }
+        }
+
+        return new SelectionVerdict(true, null, judgement.FrequencyError, judgement.Margin, null, judgement);
+    }
+}

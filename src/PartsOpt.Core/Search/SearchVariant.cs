@@ -1,0 +1,207 @@
+using PartsOpt.Topologies;
+
+namespace PartsOpt.Search;
+
+/// <summary>
+/// One topology with one op-amp assignment (the amplifier for the analog sections, an optional separate
+/// comparator part, and with a single supply whether a spare section buffers the reference): its roles
+/// as slots over the stock choices, its op-amp packages as fixed draws, the decoupling capacitors as one
+/// more slot, and the log-space bounds of <see cref="FrequencyRelaxation"/>.
+/// </summary>
+internal sealed class SearchVariant
+{
+    /// <summary>Name of the slot holding the decoupling capacitors (one per op-amp package).</summary>
+    public const string DecouplingSlot = "decoupling";
+
+    public SearchVariant(SearchContext context, TopologyKind topology, int amplifier, int? comparator, bool bufferReference)
+    {
+        Context = context;
+        Topology = topology;
+        AmplifierIndex = amplifier;
+        ComparatorIndex = comparator;
+        BufferReference = bufferReference;
+        var requirement = context.Requirement;
+        var amp = context.Stock.OpAmps[amplifier];
+        var cmp = comparator is { } c ? context.Stock.OpAmps[c] : null;
+        Prototype = new CircuitDesign(topology, requirement.Supply, amp.Spec with { PartNumber = amp.PartNumber },
+            new Dictionary<string, RolePart>(), requirement.Duty.ToDutyControl(),
+            cmp is null ? null : cmp.Spec with { PartNumber = cmp.PartNumber }, bufferReference);
+        RoleNames = Prototype.RequiredRoles();
+
+        Functions = (topology == TopologyKind.RcRamp ? 1 : 2) + (cmp is null ? 1 : 0) + (bufferReference ? 1 : 0);
+        AmplifierPackages = (Functions + amp.Spec.SectionsPerPackage - 1) / amp.Spec.SectionsPerPackage;
+        var fixedDraws = new List<PartDraw> { new(context.OpAmpLine(amplifier), AmplifierPackages) };
+        if (comparator is { } cl)
+            fixedDraws.Add(new PartDraw(context.OpAmpLine(cl), 1));
+        Packages = AmplifierPackages + (cmp is null ? 0 : 1);
+
+        var slots = RoleNames
+            .Select(role => new SelectionSlot(role, context.Options.For(role).Select(RoleOptions.ToOption).ToList()))
+            .ToList();
+        DecouplingChoices = context.DecouplingCapacitors;
+        if (DecouplingChoices.Count > 0)
+            slots.Add(new SelectionSlot(DecouplingSlot, DecouplingChoices
+                .Select(i => new SlotOption([new PartDraw(i, Packages)], 0, i)).ToList()));
+
+        var relaxation = FrequencyRelaxation.For(this, slots);
+        var groups = relaxation.Groups.ToList();
+        if (ThresholdDivider.For(this, slots) is { } divider)
+        {
+            Thresholds = divider;
+            ThresholdGroup = groups.Count;
+            groups.Add(divider.Group);
+        }
+        Problem = new SelectionProblem
+        {
+            Lines = context.Lines,
+            Slots = slots,
+            FixedDraws = fixedDraws,
+            Groups = groups,
+            Bounds = relaxation.Bounds,
+            BuildQuantity = requirement.BuildQuantity,
+            Costs = requirement.Costs,
+        };
+    }
+
+    public SearchContext Context { get; }
+    public TopologyKind Topology { get; }
+    public int AmplifierIndex { get; }
+    public int? ComparatorIndex { get; }
+    public bool BufferReference { get; }
+
+    /// <summary>The design without its role parts: topology, supply, op-amps, duty control.</summary>
+    public CircuitDesign Prototype { get; }
+
+    /// <summary>The roles to fill, in role order; slot i is role i, the decoupling slot (if any) comes last.</summary>
+    public IReadOnlyList<string> RoleNames { get; }
+
+    /// <summary>Op-amp functions on the amplifier part (oscillator or Schmitt, integrator, comparator, buffer).</summary>
+    public int Functions { get; }
+
+    public int AmplifierPackages { get; }
+    public int Packages { get; }
+
+    /// <summary>Stock line indices of the capacitors fit for decoupling, cheapest first.</summary>
+    public IReadOnlyList<int> DecouplingChoices { get; }
+
+    public SelectionProblem Problem { get; }
+
+    /// <summary>Scopes already swept by <see cref="ScopeSweep"/> in this variant.</summary>
+    public HashSet<string> SweptScopes { get; } = [];
+
+    /// <summary>The threshold divider's (cmp.ra, cmp.pot, cmp.rb) tuples and their threshold range, if built.</summary>
+    public ThresholdDivider? Thresholds { get; }
+
+    /// <summary>Index of the threshold divider's group in <see cref="Problem"/>, if built.</summary>
+    public int? ThresholdGroup { get; }
+
+    /// <summary>A short name for reports: "three-stage, amplifier TL074, comparator LM393".</summary>
+    public string Describe() =>
+        $"{Topology.ToWireName()} with {Context.Stock.OpAmps[AmplifierIndex].PartNumber}" +
+        (ComparatorIndex is { } c ? $" and comparator {Context.Stock.OpAmps[c].PartNumber}" : "") +
+        (BufferReference ? ", buffered reference" : "");
+
+    /// <summary>The slot index of a role, or −1 when the variant has no such role.</summary>
+    public int SlotOf(string role)
+    {
+        for (var i = 0; i < RoleNames.Count; i++)
+            if (RoleNames[i] == role)
+                return i;
+        return -1;
+    }
+
+    /// <summary>The role slots (decoupling excluded): what makes two designs different circuits.</summary>
+    public IReadOnlyList<int> RoleSlots => Enumerable.Range(0, RoleNames.Count).ToList();
+
+    /// <summary>The stock choice in each role for an assignment.</summary>
+    public IReadOnlyDictionary<string, StockChoice> ChoicesOf(IReadOnlyList<int> choice) =>
+        RoleNames.Select((role, s) => (role, option: (StockChoice)Problem.Slots[s].Options[choice[s]].Tag!))
+            .ToDictionary(x => x.role, x => x.option);
+
+    /// <summary>The circuit of an assignment.</summary>
+    public CircuitDesign DesignOf(IReadOnlyList<int> choice) =>
+        Prototype with
+        {
+            Roles = ChoicesOf(choice).ToDictionary(kv => kv.Key, kv => kv.Value.ToRolePart()),
+        };
+
+    /// <summary>
+    /// The slots a missed target depends on, from the engine's model: frequency on the square-wave
+    /// generator's own parts and the reference divider; ramp amplitude also on the integrator; output
+    /// levels only on the comparator's pull-up; the duty range and the checks on every role.
+    /// </summary>
+    public IReadOnlyList<int> ScopeOf(MissedTarget missed) => missed switch
+    {
+        MissedTarget.Frequency => Slots(FrequencyRoles()),
+        MissedTarget.TriangleAmplitude => Slots(RampRoles()),
+        MissedTarget.OutputLevels => Slots([Roles.CmpPullup]),
+        _ => RoleSlots,
+    };
+
+    /// <summary>
+    /// The slots a failed check of the engine depends on (a superset, read from its formulas): the
+    /// switching and edge checks on the frequency roles, the integrator and input-range checks of the
+    /// analog sections on the ramp roles, a polarity check on its own role; anything else on every role.
+    /// </summary>
+    public IReadOnlyList<int> ScopeOfCheck(string check, DesignJudgement judgement) => check switch
+    {
+        "input common-mode range (comparator)" when RampOutsideComparatorRange(judgement) => Slots(RampRoles()),
+        "oscillator can switch" or "output edges short against the period" => Slots(FrequencyRoles()),
+        "integrator slope below slew rate" or "triangle inside integrator swing"
+            or "input common-mode range (oscillator)" or "input common-mode range (schmitt)"
+            or "input common-mode range (integrator)" or "input common-mode range (reference buffer)"
+            or "output current (oscillator)" or "output current (schmitt)" or "output current (integrator)"
+            => Slots(RampRoles()),
+        _ when check.StartsWith("non-polarised (", StringComparison.Ordinal) && SlotOf(check[15..^1]) is >= 0 and var s => [s],
+        _ => RoleSlots,
+    };
+
+    /// <summary>
+    /// The strongest valid no-good cut for a rejected design: the smallest scope among its misses; for a
+    /// duty range missed alone, the ramp roles plus an escape through the threshold divider's tuples that
+    /// reach further (duty falls monotonically as the threshold rises).
+    /// </summary>
+    public SelectionVerdict Rejection(int[] choice, DesignJudgement judgement)
+    {
+        var scopes = judgement.Missed.Where(m => m is not (MissedTarget.DutyRange or MissedTarget.Check)).Select(ScopeOf)
+            .Concat(judgement.FailedChecks.Select(c => ScopeOfCheck(c, judgement)))
+            .Append(RoleSlots);
+        var best = scopes.MinBy(scope => scope.Count)!;
+        var verdict = new SelectionVerdict(false, best, judgement.FrequencyError, judgement.Margin,
+            string.Join("; ", judgement.Reasons), judgement);
+        if (!judgement.Missed.Contains(MissedTarget.DutyRange) || best.Count < RoleSlots.Count)
+            return verdict;
+        var ramp = Slots(RampRoles());
+        if (Prototype.DutyControl is ControlVoltageDuty)
+            return verdict with { CutSlots = ramp };
+        if (Thresholds is null || ThresholdGroup is null)
+            return verdict;
+        var escape = Thresholds.Escape(choice, judgement.MissesLowDuty, judgement.MissesHighDuty);
+        return verdict with { CutSlots = ramp, CutGroup = ThresholdGroup, CutEscape = escape };
+    }
+
+    /// <summary>True when the ramp alone leaves the comparator's input range (so any threshold fails too).</summary>
+    private bool RampOutsideComparatorRange(DesignJudgement judgement)
+    {
+        var evaluation = judgement.Evaluation;
+        if (evaluation.Figure(FigureNames.TriangleCentre) is not { } centre
+            || evaluation.Figure(FigureNames.TrianglePeakToPeak) is not { } peakToPeak)
+            return false;
+        var part = Prototype.ComparatorPart;
+        var supply = Prototype.Supply;
+        return centre - peakToPeak / 2 < supply.NegativeV + part.InputHeadroomLowV - 1e-9
+            || centre + peakToPeak / 2 > supply.PositiveV - part.InputHeadroomHighV + 1e-9;
+    }
+
+    /// <summary>Roles the frequency depends on: the square-wave generator's and the reference divider.</summary>
+    private string[] FrequencyRoles() => Topology == TopologyKind.Loop
+        ? [Roles.IntR, Roles.IntC, Roles.SchR1, Roles.SchR2, Roles.RefRtop, Roles.RefRbottom]
+        : [Roles.OscR, Roles.OscC, Roles.OscR1, Roles.OscR2, Roles.RefRtop, Roles.RefRbottom];
+
+    /// <summary>Roles the ramp the comparator sees depends on (frequency roles plus the three-stage integrator).</summary>
+    private string[] RampRoles() => Topology == TopologyKind.ThreeStage
+        ? [.. FrequencyRoles(), Roles.IntR, Roles.IntC, Roles.IntRf]
+        : FrequencyRoles();
+
+    private List<int> Slots(IEnumerable<string> roles) => roles.Select(SlotOf).Where(s => s >= 0).ToList();
+}
