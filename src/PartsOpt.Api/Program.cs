@@ -1,5 +1,6 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using PartsOpt.Api.DesignSearches;
 using PartsOpt.Api.Health;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
@@ -40,6 +41,7 @@ await app.InitialiseDatabaseAsync();
 
 app.MapHealth();
 app.MapParts();
+app.MapDesignSearches();
 
 await app.RunAsync();
 

@@ -1,4 +1,5 @@
 using Microsoft.EntityFrameworkCore;
+using PartsOpt.Api.DesignSearches;
 using PartsOpt.Api.Movements;
 using PartsOpt.Api.Parts;
 
@@ -12,6 +13,9 @@ public sealed class PartsOptDbContext(DbContextOptions<PartsOptDbContext> option
 {
     public DbSet<Part> Parts => Set<Part>();
     public DbSet<Movement> Movements => Set<Movement>();
+    public DbSet<SavedSearch> DesignSearches => Set<SavedSearch>();
+    public DbSet<SavedDesign> Designs => Set<SavedDesign>();
+    public DbSet<DesignNeed> DesignNeeds => Set<DesignNeed>();
 
     protected override void OnModelCreating(ModelBuilder modelBuilder) =>
         modelBuilder.ApplyConfigurationsFromAssembly(typeof(PartsOptDbContext).Assembly);

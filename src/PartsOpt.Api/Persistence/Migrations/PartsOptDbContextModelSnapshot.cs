@@ -17,6 +17,121 @@ namespace PartsOpt.Api.Persistence.Migrations
 #pragma warning disable 612, 618
             modelBuilder.HasAnnotation("ProductVersion", "10.0.15");
 
+            modelBuilder.Entity("PartsOpt.Api.DesignSearches.DesignNeed", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("AvailableAtSearch")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("DesignId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("PartNumber")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .UseCollation("NOCASE");
+
+                    b.Property<int>("QuantityForBuild")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("DesignId", "PartNumber")
+                        .IsUnique();
+
+                    b.ToTable("DesignNeeds", null, t =>
+                        {
+                            t.HasCheckConstraint("CK_DesignNeeds_Quantity", "QuantityForBuild > 0");
+                        });
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.DesignSearches.SavedDesign", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<bool>("BestOfTopology")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<decimal>("CostPerBoard")
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("Rank")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("ResultJson")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("SearchId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Topology")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("SearchId", "Rank")
+                        .IsUnique();
+
+                    b.ToTable("Designs", null, t =>
+                        {
+                            t.HasCheckConstraint("CK_Designs_Rank", "Rank >= 1");
+                        });
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.DesignSearches.SavedSearch", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Actor")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTime>("CreatedAtUtc")
+                        .HasColumnType("TEXT");
+
+                    b.Property<double>("ElapsedSeconds")
+                        .HasColumnType("REAL");
+
+                    b.Property<string>("NotesJson")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<bool>("OptimalityProved")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("RequirementJson")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("Solves")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Status")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("TopologiesJson")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.ToTable("DesignSearches", (string)null);
+                });
+
             modelBuilder.Entity("PartsOpt.Api.Movements.Movement", b =>
                 {
                     b.Property<long>("Id")
@@ -212,6 +327,26 @@ namespace PartsOpt.Api.Persistence.Migrations
                         });
                 });
 
+            modelBuilder.Entity("PartsOpt.Api.DesignSearches.DesignNeed", b =>
+                {
+                    b.HasOne("PartsOpt.Api.DesignSearches.SavedDesign", null)
+                        .WithMany("Needs")
+                        .HasForeignKey("DesignId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.DesignSearches.SavedDesign", b =>
+                {
+                    b.HasOne("PartsOpt.Api.DesignSearches.SavedSearch", "Search")
+                        .WithMany("Designs")
+                        .HasForeignKey("SearchId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+
+                    b.Navigation("Search");
+                });
+
             modelBuilder.Entity("PartsOpt.Api.Movements.Movement", b =>
                 {
                     b.HasOne("PartsOpt.Api.Parts.Part", "Part")
@@ -221,6 +356,16 @@ namespace PartsOpt.Api.Persistence.Migrations
                         .IsRequired();
 
                     b.Navigation("Part");
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.DesignSearches.SavedDesign", b =>
+                {
+                    b.Navigation("Needs");
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.DesignSearches.SavedSearch", b =>
+                {
+                    b.Navigation("Designs");
                 });
 
             modelBuilder.Entity("PartsOpt.Api.Parts.Part", b =>
