@@ -86,7 +86,7 @@ public static class DesignSearch
             complete[variant.Topology] = false;
 
         var designs = DesignAssembler.Rank(found, requirement.MaxResults);
-        var reports = plans.Select(p => InfeasibilityReport.For(p, designs, complete[p.Topology], tracker, context)).ToList();
+        var reports = plans.Select(p => InfeasibilityReport.For(p, designs, complete[p.Topology], tracker, context, deadline)).ToList();
         var proved = complete.Values.All(c => c);
         if (!proved)
             notes.Add(cancellation.IsCancellationRequested

@@ -15,7 +15,7 @@ internal static class FrequencyProbe
     public static (string Resistor, string Capacitor) TimingRoles(TopologyKind topology) =>
         topology == TopologyKind.Loop ? (Roles.IntR, Roles.IntC) : (Roles.OscR, Roles.OscC);
 
-    public static (SearchVariant Variant, int[] Choice, DesignJudgement Judgement)? Nearest(SearchVariant variant)
+    public static (SearchVariant Variant, int[] Choice, DesignJudgement Judgement)? Nearest(SearchVariant variant, DateTime deadlineUtc)
     {
         var slots = variant.Problem.Slots;
         double Value(int slot, int option) => ((StockChoice)slots[slot].Options[option].Tag!).Value;
@@ -57,7 +57,7 @@ internal static class FrequencyProbe
         var bestDistance = double.PositiveInfinity;
         var trials = 0;
         for (var r = 0; r < slots[rSlot].Options.Count && trials < MaxTrials; r++)
-            for (var c = 0; c < slots[cSlot].Options.Count && trials < MaxTrials; c++, trials++)
+            for (var c = 0; c < slots[cSlot].Options.Count && trials < MaxTrials && (trials % 64 != 0 || DateTime.UtcNow < deadlineUtc); c++, trials++)
             {
                 choice[rSlot] = r;
                 choice[cSlot] = c;

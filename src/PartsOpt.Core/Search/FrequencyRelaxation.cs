@@ -135,7 +135,7 @@ internal static class FrequencyRelaxation
     }
 
     /// <summary>Saturation levels of the amplifier relative to a reference voltage.</summary>
-    private readonly record struct Levels(Supply Supply, OpAmpSpec Amp)
+    internal readonly record struct Levels(Supply Supply, OpAmpSpec Amp)
     {
         public double HighRel(double referenceV) => Supply.PositiveV - Amp.OutputHeadroomHighV - referenceV;
 

@@ -8,12 +8,13 @@ namespace PartsOpt.Search;
 /// Explains a topology with no design: what blocked it in a designer's words, the nearest miss (the
 /// candidate the engine rejected by the smallest shortfall, or failing that the design nearest the
 /// frequency band), and one purchase that would bring the frequency into its band when that is cheap to
-/// find: one E24 resistor value for the timing resistor, or else one E12 capacitor value.
+/// find: one E24 resistor value for the timing resistor, or else one E12 capacitor value. Stops working
+/// out nearest misses and purchases when the search's deadline has passed.
 /// </summary>
 internal static class InfeasibilityReport
 {
     public static TopologyReport For(TopologyPlan plan, IReadOnlyList<FoundDesign> designs, bool complete,
-        MissTracker tracker, SearchContext context)
+        MissTracker tracker, SearchContext context, DateTime deadlineUtc)
     {
         var topology = plan.Topology;
         if (designs.Any(d => d.Topology == topology))
@@ -22,7 +23,8 @@ internal static class InfeasibilityReport
             return new TopologyReport(topology, false, true,
                 plan.SetAside.Count > 0 ? string.Join(" ", plan.SetAside) : "No op-amp assignment can be built.", null, null);
 
-        var probe = FrequencyProbe.Nearest(plan.Variants[0]);
+        var timeLeft = DateTime.UtcNow < deadlineUtc;
+        var probe = timeLeft ? FrequencyProbe.Nearest(plan.Variants[0], deadlineUtc) : null;
         var misses = tracker.Misses(topology);
         string blocking;
         NearMiss? nearest = null;
@@ -32,7 +34,7 @@ internal static class InfeasibilityReport
             blocking = $"Every candidate that met the frequency relaxation and the stock failed the exact analysis; misses: {counted}.";
             nearest = Describe(near.Variant, near.Choice, near.Judgement);
         }
-        else if (!StockCoversOneBoardSet(plan.Variants[0]))
+        else if (timeLeft && !StockCoversOneBoardSet(plan.Variants[0], deadlineUtc))
         {
             blocking = $"Not enough stock for {context.Requirement.BuildQuantity} boards: the roles cannot all be filled from what is available, " +
                 "counting every role that shares a part number.";
@@ -51,7 +53,11 @@ internal static class InfeasibilityReport
         if (plan.SetAside.Count > 0)
             blocking += " Set aside: " + string.Join(" ", plan.SetAside);
         var hint = probe is { } q ? PurchaseHint(q.Variant, q.Choice, q.Judgement) : null;
-        return new TopologyReport(topology, false, complete, blocking, nearest, hint);
+        var note = hint is not null ? null
+            : !timeLeft ? "The time limit ran out before a purchase could be worked out."
+            : probe is null ? "No stocked design oscillates, so no single value to buy could be worked out."
+            : "No single E24 resistor or E12 capacitor value brings the nearest design into the frequency band; left to the designer.";
+        return new TopologyReport(topology, false, complete, blocking, nearest, hint, note);
     }
 
     private static string Phrase(MissedTarget target) => target switch
@@ -65,7 +71,7 @@ internal static class InfeasibilityReport
         _ => target.ToString(),
     };
 
-    private static bool StockCoversOneBoardSet(SearchVariant variant)
+    private static bool StockCoversOneBoardSet(SearchVariant variant, DateTime deadlineUtc)
     {
         var unbounded = new SelectionProblem
         {
@@ -76,7 +82,7 @@ internal static class InfeasibilityReport
             Costs = variant.Problem.Costs,
         };
         var run = new SelectionSolver(unbounded).Run(_ => new SelectionVerdict(true), 1, null, variant.RoleSlots,
-            DateTime.UtcNow.AddSeconds(2), 1, CancellationToken.None);
+            deadlineUtc, 1, CancellationToken.None);
         return run.Accepted.Count > 0 || !run.Complete;
     }
 
@@ -89,7 +95,7 @@ internal static class InfeasibilityReport
     /// One value to buy that puts the nearest design's frequency inside the band (checked by the engine):
     /// the E24 resistor nearest the value that would hit the target, else the E12 capacitor.
     /// </summary>
-    private static string? PurchaseHint(SearchVariant variant, int[] choice, DesignJudgement judgement)
+    private static PurchaseSuggestion? PurchaseHint(SearchVariant variant, int[] choice, DesignJudgement judgement)
     {
         if (judgement.Evaluation.Figure(FigureNames.Frequency) is not { } frequency)
             return null;
@@ -111,12 +117,13 @@ internal static class InfeasibilityReport
                 continue;
             }
             if (f is { } hz && target.Contains(hz))
-                return Say($"Buy one {series} value, {EngineeringValue.Format(value, quantity)} for {role} (with {variant.Describe()}): the nearest design then runs at {hz:G5} Hz, inside the band") +
+                return new PurchaseSuggestion(role, Roles.KindOf(role), value, series.ToString(),
+                    Say($"Buy one {series} value, {EngineeringValue.Format(value, quantity)} for {role} (with {variant.Describe()}): the nearest design then runs at {hz:G5} Hz, inside the band") +
                     (judgement.Missed.Any(m => m != MissedTarget.Frequency)
                         ? "; its other misses remain: " + string.Join("; ", judgement.Reasons.Where(r => !r.StartsWith("frequency", StringComparison.Ordinal))) + "."
-                        : ".");
+                        : "."));
         }
-        return "No single E24 resistor or E12 capacitor value brings the nearest design into the frequency band; left to the designer.";
+        return null;
     }
 
     private static string Say(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);

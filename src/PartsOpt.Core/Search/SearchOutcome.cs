@@ -73,20 +73,31 @@ public sealed record NearMiss(
     IReadOnlyDictionary<string, double?> Figures,
     IReadOnlyList<string> Misses);
 
+/// <summary>One value to buy that would bring a topology's nearest design into its frequency band.</summary>
+/// <param name="Role">The role the new part fills.</param>
+/// <param name="Kind">Resistor or capacitor.</param>
+/// <param name="Value">Nominal value, Ω or F, from <paramref name="Series"/>.</param>
+/// <param name="Series">The preferred-number series the value comes from ("E24" resistors, "E12" capacitors).</param>
+/// <param name="Explanation">What it achieves and what would still be missing, in a designer's words.</param>
+public sealed record PurchaseSuggestion(string Role, PartKind Kind, double Value, string Series, string Explanation);
+
 /// <summary>What the search found for one topology.</summary>
 /// <param name="Topology">The topology.</param>
 /// <param name="Feasible">True when at least one design of this topology was found.</param>
 /// <param name="Proved">True when the answer for this topology is proved (optimal or infeasible).</param>
 /// <param name="Blocking">Why nothing fits, in a designer's words; null when feasible.</param>
 /// <param name="Nearest">The nearest miss; null when feasible or when no candidate got as far as the engine.</param>
-/// <param name="PurchaseHint">The smallest purchase that would make it feasible, if one was found cheaply.</param>
+/// <param name="Purchase">One value to buy that brings the nearest design's frequency into its band, if one
+/// was found cheaply; null otherwise (see <paramref name="PurchaseNote"/>).</param>
+/// <param name="PurchaseNote">Why no purchase is suggested, when none is.</param>
 public sealed record TopologyReport(
     TopologyKind Topology,
     bool Feasible,
     bool Proved,
     string? Blocking,
     NearMiss? Nearest,
-    string? PurchaseHint);
+    PurchaseSuggestion? Purchase,
+    string? PurchaseNote = null);
 
 /// <summary>The answer to "what can we build from the stockroom, and what is cheapest?".</summary>
 /// <param name="Status">Optimal, feasible (not proved), infeasible or unknown.</param>
