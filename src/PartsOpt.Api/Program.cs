@@ -1,5 +1,7 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using PartsOpt.Api.Circuits;
+using Microsoft.OpenApi;
 using PartsOpt.Api.Health;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
@@ -27,7 +29,12 @@ builder.Services.ConfigureHttpJsonOptions(options =>
 builder.Services.AddPartsOptDatabase();
 builder.Services.AddSingleton(TimeProvider.System);
 builder.Services.AddEndpointsApiExplorer();
-builder.Services.AddSwaggerGen();
+builder.Services.AddSwaggerGen(options =>
+    options.MapType<PartValue>(() => new OpenApiSchema
+    {
+        Type = JsonSchemaType.Number | JsonSchemaType.String,
+        Description = "A value in SI units as a number, or text such as \"4k7\" or \"100n\".",
+    }));
 
 var app = builder.Build();
 
@@ -40,6 +47,7 @@ await app.InitialiseDatabaseAsync();
 
 app.MapHealth();
 app.MapParts();
+app.MapCircuits();
 
 await app.RunAsync();
 
