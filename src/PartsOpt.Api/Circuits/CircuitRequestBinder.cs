@@ -206,7 +206,7 @@ internal static class CircuitRequestBinder
         }
 
         return new RolePart(v, t.Minus, t.Plus,
-            TemperatureBehaviour.Linear(Math.Abs(input.TempcoPpmPerK ?? PartEngineering.DefaultResistorPpmPerK)), null,
+            TemperatureBehaviour.Linear(input.TempcoPpmPerK ?? PartEngineering.DefaultResistorPpmPerK), null,
             input.PowerRatingW);
     }
 

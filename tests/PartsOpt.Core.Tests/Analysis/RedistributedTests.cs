@@ -25,3 +25,17 @@ public class RedistributedTests
             p => Assert.Equal(SpreadDistribution.Normal, p.Distribution));
     }
 }
+
+public class LinearCoefficientTests
+{
+    [Fact]
+    public void A_negative_coefficient_drifts_both_ways_by_its_magnitude()
+    {
+        // Polypropylene film is about −200 ppm/K (common practice, from memory): over 25…85 °C the value may
+        // move by 200e-6 × 60 = 1.2 % either way in the analysis.
+        var film = ParameterSpec.Symmetric("c", 10e-9, 0.02, TemperatureBehaviour.Linear(-200));
+        var drift = ParameterDrift.Of(film, new TemperatureRange(25, 85));
+        Precision.AlmostEqualRelative(0.012, drift.DriftMinus, 1e-12, "drift down");
+        Precision.AlmostEqualRelative(0.012, drift.DriftPlus, 1e-12, "drift up");
+    }
+}
