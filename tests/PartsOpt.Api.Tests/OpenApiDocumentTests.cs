@@ -18,7 +18,7 @@ public sealed class OpenApiDocumentTests(StockFactory factory) : IClassFixture<S
         Assert.Equal(HttpStatusCode.OK, response.StatusCode);
         var served = Normalise(await response.Content.ReadAsStringAsync());
 
-        var path = Path.Combine(RepositoryRoot(), "openapi", FileName);
+        var path = Path.Combine(Repository.Root, "openapi", FileName);
         if (Environment.GetEnvironmentVariable("PARTSOPT_WRITE_OPENAPI") == "1")
             await File.WriteAllTextAsync(path, served);
 
@@ -30,15 +30,4 @@ public sealed class OpenApiDocumentTests(StockFactory factory) : IClassFixture<S
     }
 
     private static string Normalise(string text) => text.ReplaceLineEndings("\n").TrimEnd() + "\n";
-
-    private static string RepositoryRoot()
-    {
-        for (var dir = new DirectoryInfo(AppContext.BaseDirectory); dir is not null; dir = dir.Parent)
-        {
-            if (File.Exists(Path.Combine(dir.FullName, "PartsOpt.sln")))
-                return dir.FullName;
-        }
-
-        throw new InvalidOperationException("PartsOpt.sln not found above " + AppContext.BaseDirectory);
-    }
 }
