@@ -1,6 +1,8 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using PartsOpt.Api.Circuits;
 using PartsOpt.Api.DesignSearches;
+using Microsoft.OpenApi;
 using PartsOpt.Api.Health;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
@@ -28,7 +30,23 @@ builder.Services.ConfigureHttpJsonOptions(options =>
 builder.Services.AddPartsOptDatabase();
 builder.Services.AddSingleton(TimeProvider.System);
 builder.Services.AddEndpointsApiExplorer();
-builder.Services.AddSwaggerGen();
+builder.Services.AddSwaggerGen(options =>
+{
+    options.SwaggerDoc("v1", new OpenApiInfo
+    {
+        Title = "PartsOpt",
+        Version = "v1",
+        Description = "Stock of parts, analysis and design of op-amp PWM generators built from the parts on hand. " +
+            "The analysis covers the low-voltage control circuit only; the power stage it drives needs its own safety design.",
+    });
+    options.IncludeXmlComments(Path.Combine(AppContext.BaseDirectory, "PartsOpt.Api.xml"));
+    options.IncludeXmlComments(Path.Combine(AppContext.BaseDirectory, "PartsOpt.Core.xml"));
+    options.MapType<PartValue>(() => new OpenApiSchema
+    {
+        Type = JsonSchemaType.Number | JsonSchemaType.String,
+        Description = "A value in SI units as a number, or text such as \"4k7\" or \"100n\".",
+    });
+});
 
 var app = builder.Build();
 
@@ -41,6 +59,7 @@ await app.InitialiseDatabaseAsync();
 
 app.MapHealth();
 app.MapParts();
+app.MapCircuits();
 app.MapDesignSearches();
 
 await app.RunAsync();

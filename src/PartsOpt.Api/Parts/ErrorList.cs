@@ -5,6 +5,9 @@ internal sealed class ErrorList
 {
     private readonly Dictionary<string, List<string>> _errors = [];
 
+    /// <summary>How many fields have a message.</summary>
+    public int Count => _errors.Count;
+
     public void Add(string field, string message)
     {
         if (!_errors.TryGetValue(field, out var list))

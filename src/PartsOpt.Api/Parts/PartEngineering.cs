@@ -13,6 +13,10 @@ public static class PartEngineering
     /// <summary>Resistors without a stated coefficient are taken as ±100 ppm/K (thick film, common practice).</summary>
     public const double DefaultResistorPpmPerK = 100;
 
+    /// <summary>Comparators seldom state a gain-bandwidth product; where none is stored it is taken as not
+    /// limiting (the engine uses it only for a warning about frequency against bandwidth).</summary>
+    public const double UnstatedGainBandwidthHz = 1e12;
+
     /// <summary>The op-amp's limits. Only for parts of kind <see cref="PartKind.OpAmp"/>; the database's CHECK
     /// constraints guarantee every limit is present for that kind.</summary>
     public static OpAmpSpec ToOpAmpSpec(Part part)
@@ -24,7 +28,7 @@ public static class PartEngineering
             part.Sections ?? 1,
             part.SupplyMinV ?? 0,
             part.SupplyMaxV ?? 0,
-            part.GainBandwidthHz ?? 0,
+            part.GainBandwidthHz ?? UnstatedGainBandwidthHz,
             part.SlewRateVPerS ?? 0,
             part.OutputHeadroomHighV ?? 0,
             part.OutputHeadroomLowV ?? 0,

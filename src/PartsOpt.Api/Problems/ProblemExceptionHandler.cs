@@ -1,6 +1,7 @@
 using System.Text.Json;
 using Microsoft.AspNetCore.Diagnostics;
 using Microsoft.AspNetCore.Mvc;
+using PartsOpt.Topologies;
 
 namespace PartsOpt.Api.Problems;
 
@@ -24,6 +25,15 @@ internal sealed class ProblemExceptionHandler(IProblemDetailsService problems) :
                 // Binding says "Implicit body inferred for parameter ... but no body was provided": say it plainly.
                 Detail = bad.Message.Contains("no body was provided", StringComparison.Ordinal)
                     ? "This request needs a JSON body." : bad.Message,
+            },
+            // The library's own check of a whole design (a role missing, a supply outside the part's range)
+            // names the field the way the request spells it.
+            DesignValidationException design => new HttpValidationProblemDetails(
+                new Dictionary<string, string[]> { [design.Field] = [design.Message] })
+            {
+                Status = StatusCodes.Status400BadRequest,
+                Title = "The design cannot be analysed.",
+                Detail = design.Message,
             },
             FormatException format => new ProblemDetails
             {
