@@ -28,13 +28,18 @@ public sealed record DesignSearchDto(
 
 /// <summary>What the search found for one topology.</summary>
 /// <remarks>
-/// <c>proved</c>: The answer for this topology is proved (optimal, or nothing fits).<br/>
-/// <c>blocking</c>: Why nothing fits, in a designer's words; absent when feasible.<br/>
-/// <c>nearestMiss</c>: The closest candidate and what it missed; absent when feasible or none got that far.<br/>
-/// <c>purchaseHint</c>: One purchase that would make it feasible, when one was found cheaply.<br/>
+/// <c>proved</c>: the answer for this topology is proved (optimal, or nothing fits).<br/>
+/// <c>blocking</c>: why nothing fits, in a designer's words; absent when feasible.<br/>
+/// <c>nearestMiss</c>: the closest candidate and what it missed; absent when feasible or none got that far.<br/>
+/// <c>purchase</c>: one value to buy that brings the nearest design into the frequency band, when found cheaply.<br/>
+/// <c>purchaseNote</c>: why no purchase is suggested, when none is.<br/>
 /// </remarks>
 public sealed record TopologyReportDto(
-    string Topology, bool Feasible, bool Proved, string? Blocking, NearMissDto? NearestMiss, string? PurchaseHint);
+    string Topology, bool Feasible, bool Proved, string? Blocking, NearMissDto? NearestMiss,
+    PurchaseDto? Purchase, string? PurchaseNote);
+
+/// <summary>A value to buy: the role it fills, "resistor" or "capacitor", the value (Ω or F) and its E series.</summary>
+public sealed record PurchaseDto(string Role, string Kind, double Value, string ValueText, string Series, string Explanation);
 
 /// <summary>The nearest miss of an infeasible topology: its parts by role, its figures and its misses.</summary>
 public sealed record NearMissDto(

@@ -11,13 +11,13 @@ namespace PartsOpt.Api.DesignSearches;
 /// <summary>What the team wants built, as a client sends it.</summary>
 public sealed record DesignSearchInput
 {
-    public SupplyInput? Supply { get; init; }
-    public BandInput? Frequency { get; init; }
+    public SearchSupplyInput? Supply { get; init; }
+    public SearchBandInput? Frequency { get; init; }
 
     /// <summary>Peak-to-peak of the triangle or ramp, V; absent when any amplitude will do.</summary>
-    public BandInput? TrianglePeakToPeak { get; init; }
+    public SearchBandInput? TrianglePeakToPeak { get; init; }
 
-    public DutyInput? Duty { get; init; }
+    public SearchDutyInput? Duty { get; init; }
 
     /// <summary>Output levels the PWM output must reach; absent when any will do.</summary>
     public OutputInput? Output { get; init; }
@@ -31,7 +31,7 @@ public sealed record DesignSearchInput
     public YieldInput? Yield { get; init; }
 
     /// <summary>Ambient range, °C.</summary>
-    public RangeInput? Temperature { get; init; }
+    public SearchRangeInput? Temperature { get; init; }
 
     /// <summary>Let a resistor or capacitor role take two stocked parts in series or parallel (default false).</summary>
     public bool? AllowCombinations { get; init; }
@@ -46,7 +46,7 @@ public sealed record DesignSearchInput
 }
 
 /// <summary>The rails, V; a negative rail of 0 (the default) is a single supply.</summary>
-public sealed record SupplyInput
+public sealed record SearchSupplyInput
 {
     [JsonConverter(typeof(VoltsJson))]
     public double? Positive { get; init; }
@@ -56,14 +56,14 @@ public sealed record SupplyInput
 }
 
 /// <summary>A target and the fraction either side of it (0.05 for ±5 %).</summary>
-public sealed record BandInput
+public sealed record SearchBandInput
 {
     public double? Target { get; init; }
     public double? Tolerance { get; init; }
 }
 
 /// <summary>The duty range the adjustment must reach, and what adjusts it.</summary>
-public sealed record DutyInput
+public sealed record SearchDutyInput
 {
     public double? Min { get; init; }
     public double? Max { get; init; }
@@ -72,11 +72,11 @@ public sealed record DutyInput
     public string? Adjust { get; init; }
 
     /// <summary>The control voltage's range (absolute, V); required with "controlVoltage" only.</summary>
-    public RangeInput? ControlRange { get; init; }
+    public SearchRangeInput? ControlRange { get; init; }
 }
 
 /// <summary>A range, min to max.</summary>
-public sealed record RangeInput
+public sealed record SearchRangeInput
 {
     public double? Min { get; init; }
     public double? Max { get; init; }

@@ -112,14 +112,14 @@ public static class DesignSearchRules
         return errors.ToDictionary();
     }
 
-    private static void Band(ErrorList errors, string field, BandInput band)
+    private static void Band(ErrorList errors, string field, SearchBandInput band)
     {
         errors.Positive($"{field}.target", band.Target, required: true);
         if (errors.Finite($"{field}.tolerance", band.Tolerance, required: true) && band.Tolerance is <= 0 or >= 1)
             errors.Add($"{field}.tolerance", "A fraction above 0 and below 1 (0.05 for ±5 %).");
     }
 
-    private static void Duty(ErrorList errors, DutyInput? duty, double? positive, double? negative)
+    private static void Duty(ErrorList errors, SearchDutyInput? duty, double? positive, double? negative)
     {
         if (duty is null)
         {
@@ -204,5 +204,5 @@ public static class DesignSearchRules
         };
     }
 
-    private static Band ToBand(BandInput band) => new(band.Target!.Value, band.Tolerance!.Value);
+    private static Band ToBand(SearchBandInput band) => new(band.Target!.Value, band.Tolerance!.Value);
 }

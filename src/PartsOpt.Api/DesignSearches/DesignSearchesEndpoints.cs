@@ -9,6 +9,7 @@ using PartsOpt.Api.Persistence;
 using PartsOpt.Api.Problems;
 using PartsOpt.Search;
 using PartsOpt.Topologies;
+using PartsOpt.Values;
 
 namespace PartsOpt.Api.DesignSearches;
 
@@ -156,7 +157,12 @@ public static class DesignSearchesEndpoints
                 near.Figures.ToDictionary(f => f.Key, f => f.Value is { } v && double.IsFinite(v) ? v : (double?)null),
                 near.Misses)
             : null,
-        report.PurchaseHint);
+        report.Purchase is { } buy
+            ? new PurchaseDto(buy.Role, buy.Kind == RoleKind.Capacitor ? "capacitor" : "resistor", buy.Value,
+                EngineeringValue.Format(buy.Value, buy.Kind == RoleKind.Capacitor ? Quantity.Capacitance : Quantity.Resistance),
+                buy.Series, buy.Explanation)
+            : null,
+        report.PurchaseNote);
 
     private static string StatusName(SearchStatus status) => status switch
     {

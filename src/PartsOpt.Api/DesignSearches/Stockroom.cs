@@ -55,10 +55,6 @@ public sealed class Stockroom
             if (part.Kind == PartKind.OpAmp)
             {
                 var spec = PartEngineering.ToOpAmpSpec(part);
-                // A comparator has no gain-bandwidth product; the engine uses it only for linear stages, which
-                // the search never gives a comparator. 1 Hz, so that any linear use would fail its check.
-                if (spec.IsComparator && part.GainBandwidthHz is null)
-                    spec = spec with { GainBandwidthHz = 1 };
                 try
                 {
                     spec.Validate("opAmp");

@@ -79,7 +79,7 @@ public sealed record NearMiss(
 /// <param name="Value">Nominal value, Ω or F, from <paramref name="Series"/>.</param>
 /// <param name="Series">The preferred-number series the value comes from ("E24" resistors, "E12" capacitors).</param>
 /// <param name="Explanation">What it achieves and what would still be missing, in a designer's words.</param>
-public sealed record PurchaseSuggestion(string Role, PartKind Kind, double Value, string Series, string Explanation);
+public sealed record PurchaseSuggestion(string Role, RoleKind Kind, double Value, string Series, string Explanation);
 
 /// <summary>What the search found for one topology.</summary>
 /// <param name="Topology">The topology.</param>

@@ -10,7 +10,8 @@ using PartsOpt.Topologies;
 namespace PartsOpt.Api.Tests.DesignSearches;
 
 /// <summary>A search of a small stock: ranking, the bands, the textbook frequency, storage and the BOM.</summary>
-public sealed class DesignSearchTests(SearchedStockFactory factory) : IClassFixture<SearchedStockFactory>
+[Collection(SharedSearch.Name)]
+public sealed class DesignSearchTests(SearchedStockFactory factory)
 {
     private readonly HttpClient _client = factory.Client;
     private DesignSearchDto Search => SearchStock.Read(factory.Body);

@@ -21,3 +21,10 @@ public sealed class SearchedStockFactory : StockFactory, IAsyncLifetime
 
     Task IAsyncLifetime.DisposeAsync() => Task.CompletedTask;
 }
+
+/// <summary>The test classes that read the one search of <see cref="SearchedStockFactory"/>.</summary>
+[CollectionDefinition(Name)]
+public sealed class SharedSearch : ICollectionFixture<SearchedStockFactory>
+{
+    public const string Name = "searched stock";
+}
