@@ -1,8 +1,66 @@
+using System.Text.Json;
+using System.Text.Json.Serialization;
+using PartsOpt.Api.Circuits;
+using Microsoft.OpenApi;
+using PartsOpt.Api.Health;
+using PartsOpt.Api.Parts;
+using PartsOpt.Api.Persistence;
+using PartsOpt.Api.Problems;
+
 var builder = WebApplication.CreateBuilder(args);
+
+// Loopback port 5080 unless URLs are given (ASPNETCORE_URLS, --urls); a default in appsettings.json
+// would override the environment variable, which the container image sets.
+if (string.IsNullOrEmpty(builder.Configuration["urls"]))
+    builder.WebHost.UseUrls("http://127.0.0.1:5080");
+
+// Errors are RFC 9457 problem details: binding failures are thrown (not answered with a bare 400) so the
+// one exception handler can name the field.
+builder.Services.AddProblemDetails();
+builder.Services.AddExceptionHandler<ProblemExceptionHandler>();
+builder.Services.Configure<RouteHandlerOptions>(options => options.ThrowOnBadRequest = true);
+builder.Services.ConfigureHttpJsonOptions(options =>
+{
+    options.SerializerOptions.DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull;
+    // The library's enums (check severity, corner method, search status…) travel as camelCase names.
+    options.SerializerOptions.Converters.Add(new JsonStringEnumConverter(JsonNamingPolicy.CamelCase));
+});
+
+builder.Services.AddPartsOptDatabase();
+builder.Services.AddSingleton(TimeProvider.System);
+builder.Services.AddEndpointsApiExplorer();
+builder.Services.AddSwaggerGen(options =>
+{
+    options.SwaggerDoc("v1", new OpenApiInfo
+    {
+        Title = "PartsOpt",
+        Version = "v1",
+        Description = "Stock of parts, analysis and design of op-amp PWM generators built from the parts on hand. " +
+            "The analysis covers the low-voltage control circuit only; the power stage it drives needs its own safety design.",
+    });
+    options.IncludeXmlComments(Path.Combine(AppContext.BaseDirectory, "PartsOpt.Api.xml"));
+    options.IncludeXmlComments(Path.Combine(AppContext.BaseDirectory, "PartsOpt.Core.xml"));
+    options.MapType<PartValue>(() => new OpenApiSchema
+    {
+        Type = JsonSchemaType.Number | JsonSchemaType.String,
+        Description = "A value in SI units as a number, or text such as \"4k7\" or \"100n\".",
+    });
+});
+
 var app = builder.Build();
 
-app.MapGet("/health", () => Results.Ok(new { status = "ok" }));
+app.UseExceptionHandler();
+app.UseStatusCodePages();
+app.UseSwagger();
+app.UseSwaggerUI();
 
-app.Run();
+await app.InitialiseDatabaseAsync();
 
+app.MapHealth();
+app.MapParts();
+app.MapCircuits();
+
+await app.RunAsync();
+
+/// <summary>Visible to the integration tests' WebApplicationFactory.</summary>
 public partial class Program;

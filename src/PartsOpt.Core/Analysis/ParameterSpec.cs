@@ -67,7 +67,10 @@ public sealed record TemperatureBehaviour(
     /// <summary>True where the behaviour is a guaranteed band rather than a linear coefficient.</summary>
     public bool IsBanded => BandMinus > 0 || BandPlus > 0;
 
-    /// <summary>A linear coefficient, ±ppm/K.</summary>
+    /// <summary>
+    /// A linear coefficient, ±ppm/K. Data give it with a sign (polypropylene film about −200 ppm/K); the
+    /// analyses drift each part both ways by its magnitude, so the sign is dropped here.
+    /// </summary>
     public static TemperatureBehaviour Linear(double ppmPerK, string? standard = null) =>
-        new(ppmPerK, Standard: standard);
+        new(Math.Abs(ppmPerK), Standard: standard);
 }

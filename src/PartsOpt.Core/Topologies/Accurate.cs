@@ -10,6 +10,8 @@ internal static class Accurate
     public static double ExpM1(double x)
     {
         var u = Math.Exp(x);
+        if (Math.Abs(x) > 0.5)
+            return u - 1.0; // no cancellation to speak of this far from 0
         if (u == 1.0)
             return x;
         var um1 = u - 1.0;

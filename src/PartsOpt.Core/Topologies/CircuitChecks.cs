@@ -20,6 +20,9 @@ internal static class CircuitChecks
     /// <summary>Hysteresis wanted, in input offsets (common practice).</summary>
     public const double HysteresisOffsets = 4;
 
+    /// <summary>Triangle shift by the integrator's amplified offset, at most this share of its peak-to-peak (common practice).</summary>
+    public const double OffsetShiftShare = 0.1;
+
     /// <summary>Frequency at most this share of the gain-bandwidth product (common practice).</summary>
     public const double BandwidthShare = 0.01;
 
@@ -30,11 +33,22 @@ internal static class CircuitChecks
         if (design.Comparator is { } separate)
             SupplyRange(checks, separate, "comparator", design.Supply);
         CanSwitch(checks, design, shape, in v, in w);
+        var canSwitch = checks.FindIndex(c => c.Name == "oscillator can switch");
+        if (!w.Oscillates && checks[canSwitch].Passed)
+        {
+            // Thresholds are reachable, yet no period comes out: the slewing edges eat the ramps, or the
+            // values lie so far out that the closed form overflows.
+            checks[canSwitch] = Check("oscillator can switch", -1, "1",
+                checks[canSwitch].Reason + " Even so, no steady period exists: the slewing edges leave no time for the ramps, or the values are out of range.");
+        }
+
         if (w.Oscillates)
         {
             CommonMode(checks, design, in w);
             Operation(checks, design, in v, in w);
             OutputCurrents(checks, design, shape, in v, in w);
+            if (shape.SingleSupply && !design.BufferReference)
+                StiffReference(checks, design, in v, in w);
         }
 
         PartRatingChecks.Add(checks, design, shape, in v, in w);
@@ -68,8 +82,7 @@ internal static class CircuitChecks
                 F($"must lie inside the integrator's swing {lm:G4}…{lp:G4} V about the reference.")));
             var hysteresis = k * (lp - lm);
             checks.Add(Check("hysteresis above offset", hysteresis - HysteresisOffsets * shape.AmpOffsetV, "V",
-                F($"Hysteresis {hysteresis:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V (common practice)."),
-                CheckSeverity.Warning));
+                F($"Hysteresis {hysteresis:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V: below that the offset, not the parts, sets the timing (common practice).")));
             return;
         }
 
@@ -80,8 +93,7 @@ internal static class CircuitChecks
             F($"the output swing {lm:G4}…{lp:G4} V by more than the input offset.")));
         var hyst = beta * (lp - lm);
         checks.Add(Check("hysteresis above offset", hyst - HysteresisOffsets * shape.AmpOffsetV, "V",
-            F($"Hysteresis {hyst:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V (common practice)."),
-            CheckSeverity.Warning));
+            F($"Hysteresis {hyst:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V: below that the offset, not the parts, sets the timing (common practice).")));
     }
 
     private static void CommonMode(List<CircuitCheck> checks, CircuitDesign design, in Waveform w)
@@ -123,6 +135,16 @@ internal static class CircuitChecks
             var bottom = design.Supply.NegativeV + v.AmpHeadroomLow;
             checks.Add(Check("triangle inside integrator swing", Math.Min(top - w.RampMaxV, w.RampMinV - bottom), "V",
                 F($"The triangle spans {w.RampMinV:G4}…{w.RampMaxV:G4} V; the integrator swings {bottom:G4}…{top:G4} V.")));
+        }
+
+        if (design.Topology == TopologyKind.ThreeStage)
+        {
+            // The shunted integrator amplifies its own input offset by its DC noise gain 1 + Rf/Ri.
+            var shift = (1 + v.IntRf / v.IntR) * design.Amplifier.InputOffsetV;
+            var allowed = OffsetShiftShare * (w.RampMaxRel - w.RampMinRel);
+            checks.Add(Check("integrator offset shift", 1 - shift / allowed, "1",
+                F($"The integrator's input offset, times its DC noise gain 1 + Rf/Ri, may shift the triangle by {shift:G4} V; keep it below {OffsetShiftShare:P0} of the peak-to-peak, {allowed:G4} V (common practice)."),
+                CheckSeverity.Warning));
         }
 
         var frequency = 1 / w.PeriodS;
@@ -167,6 +189,30 @@ internal static class CircuitChecks
                 CheckSeverity.Warning));
     }
 
+    /// <summary>Share of the returned load the reference's source resistance may be, at most (common practice).</summary>
+    public const double ReferenceSourceShare = 0.01;
+
+    /// <summary>Bypass time constant wanted, in periods (common practice).</summary>
+    public const double BypassPeriods = 10;
+
+    private static void StiffReference(List<CircuitCheck> checks, CircuitDesign design, in CircuitValues v, in Waveform w)
+    {
+        var source = v.RefRtop * v.RefRbottom / (v.RefRtop + v.RefRbottom);
+        if (design.Topology != TopologyKind.Loop)
+        {
+            // The hysteresis divider returns its current to the reference; the loop returns only input currents.
+            var load = v.OscR1 + v.OscR2;
+            checks.Add(Check("reference stiff against its load", 1 - source / (ReferenceSourceShare * load), "1",
+                F($"The unbuffered reference's source resistance {source:G4} Ω against {ReferenceSourceShare:P0} of the osc.r1 + osc.r2 load, {load:G4} Ω (common practice)."),
+                CheckSeverity.Warning));
+        }
+
+        var bypass = source * v.RefC;
+        checks.Add(Check("reference bypass", bypass / (BypassPeriods * w.PeriodS) - 1, "1",
+            F($"The bypass time constant {bypass:G4} s against {BypassPeriods} periods, {BypassPeriods * w.PeriodS:G4} s (common practice)."),
+            CheckSeverity.Warning));
+    }
+
     private static void OutputCurrents(List<CircuitCheck> checks, CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w)
     {
         double lp = w.LevelHighRel, lm = w.LevelLowRel, level = Math.Max(lp, -lm);
@@ -198,9 +244,16 @@ internal static class CircuitChecks
         checks.Add(Check($"output current ({section})", 1 - currentA / part.MaxOutputCurrentA, "1",
             F($"The {section} output drives up to {currentA * 1e3:G4} mA into its networks; the part delivers {part.MaxOutputCurrentA * 1e3:G4} mA.")));
 
+    /// <summary>
+    /// A check from its margin. Margins are kept finite (±double.MaxValue at worst) so that every result
+    /// serialises; a margin that cannot be computed (NaN) fails.
+    /// </summary>
     internal static CircuitCheck Check(string name, double margin, string unit, string reason,
-        CheckSeverity severity = CheckSeverity.Failure) =>
-        new(name, margin >= 0, margin, unit, reason, severity);
+        CheckSeverity severity = CheckSeverity.Failure)
+    {
+        var finite = double.IsNaN(margin) ? -double.MaxValue : Math.Clamp(margin, -double.MaxValue, double.MaxValue);
+        return new(name, margin >= 0, finite, unit, reason, severity);
+    }
 
     internal static string F(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

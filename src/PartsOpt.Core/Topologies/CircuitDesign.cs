@@ -73,6 +73,9 @@ public sealed record CircuitDesign(
         if (Amplifier.IsOpenDrain)
             throw new DesignValidationException("amplifier.isOpenDrain",
                 "An open-drain part cannot drive the oscillator and integrator; give it as the comparator instead.");
+        if (Amplifier.IsComparator && Topology != TopologyKind.RcRamp)
+            throw new DesignValidationException("amplifier.isComparator",
+                "A comparator part cannot work as an integrator; the amplifier must be an op-amp for this topology.");
         CheckSupplyRange(Amplifier, "amplifier");
         if (Comparator is not null)
             CheckSupplyRange(Comparator, "comparator");

@@ -15,7 +15,7 @@ public enum CheckSeverity
 /// </summary>
 /// <param name="Name">Short stable name, e.g. "oscillator can switch".</param>
 /// <param name="Passed">True when the design meets the limit.</param>
-/// <param name="Margin">Distance to the limit, positive inside it, in <paramref name="MarginUnit"/>.</param>
+/// <param name="Margin">Distance to the limit, positive inside it, in <paramref name="MarginUnit"/>; always finite.</param>
 /// <param name="MarginUnit">"V", "s", or "1" for a fraction of the limit.</param>
 /// <param name="Reason">What was checked and what came out, in plain words.</param>
 /// <param name="Severity">How serious a failure of this check is.</param>
@@ -72,5 +72,7 @@ public sealed record CircuitEvaluation(
     public bool Works => Checks.All(c => c.Passed || c.Severity != CheckSeverity.Failure);
 
     /// <summary>The value of a figure by name; null when it does not exist for this design.</summary>
-    public double? Figure(string name) => Figures.First(f => f.Name == name).Value;
+    /// <exception cref="ArgumentException">No figure has that name (see <see cref="FigureNames"/>).</exception>
+    public double? Figure(string name) =>
+        (Figures.FirstOrDefault(f => f.Name == name) ?? throw new ArgumentException($"Unknown figure '{name}'.", nameof(name))).Value;
 }

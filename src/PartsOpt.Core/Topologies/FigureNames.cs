@@ -25,7 +25,12 @@ public static class FigureNames
     public const string EdgeTime = "edgeTime";
     /// <summary>Mean current drawn from the positive rail, A.</summary>
     public const string SupplyCurrent = "supplyCurrent";
-    /// <summary>Largest departure of the ramp from a straight line, % of its peak-to-peak.</summary>
+    /// <summary>
+    /// Linearity error of the ramp the comparator sees, %: on each rising or falling segment, the largest
+    /// vertical distance between the ramp and the straight line through that segment's two end points,
+    /// divided by the peak-to-peak; the larger of the two segments. 0 for the loop's straight ramps; about
+    /// 100·u/8 for an exponential segment lasting u time constants.
+    /// </summary>
     public const string LinearityError = "linearityError";
 
     /// <summary>Every figure, in model order.</summary>

@@ -20,7 +20,7 @@ internal static class PartRatingChecks
         {
             var part = design.Roles[role];
             var volts = PeakVoltage(role, shape, in v, in w);
-            if (Roles.KindOf(role) == PartKind.Capacitor)
+            if (Roles.KindOf(role) == RoleKind.Capacitor)
             {
                 Capacitor(checks, role, part, volts);
                 continue;

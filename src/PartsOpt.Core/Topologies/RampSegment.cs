@@ -31,19 +31,16 @@ internal readonly record struct RampSegment(double StartV, double EndV, double D
     }
 
     /// <summary>
-    /// Largest distance between the ramp and the straight line through its end points, as a fraction of
-    /// |EndV − StartV|. For v(t) = A + (v0 − A)·e^(−t/τ) over u = d/τ, with x = 1 − e^(−u), the chord's slope
-    /// is met at e^(−t/τ) = x/u and the distance there is |x/u − 1 + (x/u)·ln(u/x)|/x, which is u/8 − u³/576
-    /// for small u (series by computer algebra). Zero for a straight segment.
+    /// Largest distance between an exponential segment and the straight line through its end points, as a
+    /// fraction of the segment's swing. For v(t) = A + (v0 − A)·e^(−t/τ) over u = d/τ, with x = 1 − e^(−u)
+    /// (passed in, as the caller has it already), the chord's slope is met at e^(−t/τ) = x/u and the
+    /// distance there is |x/u − 1 + (x/u)·ln(u/x)|/x, which is u/8 − u³/576 for small u (series by computer
+    /// algebra). A straight segment (u = 0) has none.
     /// </summary>
-    public double Bow()
+    public static double Bow(double u, double x)
     {
-        if (IsLinear)
-            return 0;
-        var u = DurationS / TauS;
         if (u < 1e-2)
             return u / 8 - u * u * u / 576;
-        var x = -Accurate.ExpM1(-u);
         var ratio = x / u;
         return Math.Abs(ratio - 1 - ratio * Math.Log(ratio)) / x;
     }

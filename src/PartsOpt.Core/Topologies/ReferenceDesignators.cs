@@ -16,8 +16,8 @@ public static class ReferenceDesignators
         {
             result[role] = Roles.KindOf(role) switch
             {
-                PartKind.Capacitor => $"C{++capacitors}",
-                PartKind.Potentiometer => $"RV{++pots}",
+                RoleKind.Capacitor => $"C{++capacitors}",
+                RoleKind.Potentiometer => $"RV{++pots}",
                 _ => $"R{++resistors}",
             };
         }

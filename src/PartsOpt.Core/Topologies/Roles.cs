@@ -1,7 +1,7 @@
 namespace PartsOpt.Topologies;
 
 /// <summary>What kind of part fills a role, which decides its reference-designator prefix.</summary>
-public enum PartKind
+public enum RoleKind
 {
     /// <summary>A fixed resistor (R1, R2…).</summary>
     Resistor,
@@ -60,11 +60,11 @@ public static class Roles
     ];
 
     /// <summary>The kind of part a role takes.</summary>
-    public static PartKind KindOf(string role) => role switch
+    public static RoleKind KindOf(string role) => role switch
     {
-        OscC or IntC or RefC => PartKind.Capacitor,
-        CmpPot => PartKind.Potentiometer,
-        _ when All.Contains(role) => PartKind.Resistor,
+        OscC or IntC or RefC => RoleKind.Capacitor,
+        CmpPot => RoleKind.Potentiometer,
+        _ when All.Contains(role) => RoleKind.Resistor,
         _ => throw new ArgumentOutOfRangeException(nameof(role), role, "Unknown role."),
     };
 }

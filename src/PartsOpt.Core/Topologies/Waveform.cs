@@ -81,6 +81,8 @@ internal struct Waveform
             w.ThresholdMaxV = shape.ControlMaxV;
         }
 
+        w.Ratio = shape.Topology == TopologyKind.Loop ? v.SchR1 / v.SchR2 : v.OscR2 / (v.OscR1 + v.OscR2);
+
         // The outputs must straddle the reference, or no threshold can ever be crossed.
         var switches = w.LevelHighRel > 0 && w.LevelLowRel < 0 && shape.Topology switch
         {
@@ -97,22 +99,25 @@ internal struct Waveform
         w.SupplyCurrentA = SupplyCurrent(in v, shape, in w);
     }
 
-    /// <summary>Saturated high and low times of the relaxation oscillator (REFERENCE.md, unequal saturation).</summary>
-    private static (double High, double Low) RelaxationTimes(in CircuitValues v, in Waveform w, double beta)
+    /// <summary>
+    /// Saturated high and low times of the relaxation oscillator (REFERENCE.md, unequal saturation), as
+    /// RC·ln(1 + g): g_high = β(L+ − L−)/((1−β)L+), g_low = β(L+ − L−)/((1−β)|L−|) are the ratios less one,
+    /// written so that a small β loses no digits. Also returns x = 1 − e^(−t/RC) = g/(1+g) of each.
+    /// </summary>
+    private static (double High, double Low, double XHigh, double XLow) RelaxationTimes(in CircuitValues v, in Waveform w, double beta)
     {
         double lp = w.LevelHighRel, lm = w.LevelLowRel, rc = v.OscR * v.OscC;
-        var high = rc * Math.Log((lp - beta * lm) / ((1 - beta) * lp));
-        var low = rc * Math.Log((lm - beta * lp) / ((1 - beta) * lm));
-        return (high, low);
+        var common = beta * (lp - lm) / (1 - beta);
+        double gHigh = common / lp, gLow = common / -lm;
+        return (rc * Accurate.Log1P(gHigh), rc * Accurate.Log1P(gLow), gHigh / (1 + gHigh), gLow / (1 + gLow));
     }
 
     private static bool ThreeStage(in CircuitValues v, CircuitShape shape, ref Waveform w)
     {
-        var beta = v.OscR2 / (v.OscR1 + v.OscR2);
-        w.Ratio = beta;
+        var beta = w.Ratio;
         if (!RelaxationCanSwitch(in w, beta, shape.AmpOffsetV))
             return false;
-        var (high, low) = RelaxationTimes(in v, in w, beta);
+        var (high, low, _, _) = RelaxationTimes(in v, in w, beta);
         w.HighTimeS = high + w.AmpEdgeS;
         w.LowTimeS = low + w.AmpEdgeS;
         w.PeriodS = w.HighTimeS + w.LowTimeS;
@@ -132,17 +137,16 @@ internal struct Waveform
         w.Fall = new RampSegment(w.RampMaxRel, w.RampMinRel, w.HighTimeS, towardsLow, tau);
         w.Rise = new RampSegment(w.RampMinRel, w.RampMaxRel, w.LowTimeS, towardsHigh, tau);
         w.IntegratorSlopeMax = Math.Max(w.RampMaxRel - towardsLow, towardsHigh - w.RampMinRel) / tau;
-        w.LinearityErrorPercent = 100 * Math.Max(w.Fall.Bow(), w.Rise.Bow());
+        w.LinearityErrorPercent = 100 * Math.Max(RampSegment.Bow(w.HighTimeS / tau, x), RampSegment.Bow(w.LowTimeS / tau, y));
         return true;
     }
 
     private static bool RcRamp(in CircuitValues v, CircuitShape shape, ref Waveform w)
     {
-        var beta = v.OscR2 / (v.OscR1 + v.OscR2);
-        w.Ratio = beta;
+        var beta = w.Ratio;
         if (!RelaxationCanSwitch(in w, beta, shape.AmpOffsetV))
             return false;
-        var (high, low) = RelaxationTimes(in v, in w, beta);
+        var (high, low, xHigh, xLow) = RelaxationTimes(in v, in w, beta);
         w.HighTimeS = high + w.AmpEdgeS;
         w.LowTimeS = low + w.AmpEdgeS;
         w.PeriodS = w.HighTimeS + w.LowTimeS;
@@ -153,7 +157,7 @@ internal struct Waveform
         w.Rise = new RampSegment(w.RampMinRel, w.RampMaxRel, high, w.LevelHighRel, rc);
         w.Fall = new RampSegment(w.RampMaxRel, w.RampMinRel, low, w.LevelLowRel, rc);
         w.DwellTopS = w.AmpEdgeS;
-        w.LinearityErrorPercent = 100 * Math.Max(w.Fall.Bow(), w.Rise.Bow());
+        w.LinearityErrorPercent = 100 * Math.Max(RampSegment.Bow(high / rc, xHigh), RampSegment.Bow(low / rc, xLow));
         return true;
     }
 
@@ -164,8 +168,7 @@ internal struct Waveform
     private static bool Loop(in CircuitValues v, ref Waveform w)
     {
         double lp = w.LevelHighRel, lm = w.LevelLowRel, te = w.AmpEdgeS;
-        var k = v.SchR1 / v.SchR2;
-        w.Ratio = k;
+        var k = w.Ratio;
         // Thresholds −k·L+ and −k·L− must lie inside the integrator's swing (r1 < r2 when symmetric).
         if (!(k * lp < -lm && -k * lm < lp))
             return false;

@@ -8,7 +8,8 @@ public static partial class EngineeringValue
     /// Writes a value with an SI prefix and the unit symbol, rounded to <paramref name="significantDigits"/>
     /// and without trailing zeros: "4.7 kΩ", "100 nF", "1 MΩ", "455 Hz". The number sits in [1, 1000) before
     /// its prefix; outside f…T it is written with an exponent ("1e-18 F"). A ratio is written bare, without
-    /// prefix ("0.5"). <see cref="Parse"/> reads every result back to the value rounded to those digits.
+    /// prefix ("0.5"). A negative value starts with "-". <see cref="Parse"/> reads every result back to the
+    /// value rounded to those digits (negative ones only for voltage and current, the signed quantities).
     /// </summary>
     /// <exception cref="ArgumentOutOfRangeException">The value is not finite, or the digits are not 1–17.</exception>
     public static string Format(double value, Quantity quantity, int significantDigits = 3)
@@ -66,6 +67,9 @@ public static partial class EngineeringValue
             fraction += "0";
         return integer + marker.Letter + fraction;
     }
+
+    /// <summary>The unit symbol written for a quantity: Ω F H V A Hz W s, and "" for a ratio.</summary>
+    public static string UnitSymbol(Quantity quantity) => QuantityUnit.Of(quantity).Symbol;
 
     private static (string Letter, int Exponent)[] RkmMarkers(Quantity quantity) => quantity switch
     {

@@ -12,7 +12,8 @@ namespace PartsOpt.Values;
 /// <remarks>
 /// Reading rules:
 /// <list type="bullet">
-/// <item>Surrounding whitespace is ignored; whitespace may separate the number from prefix and unit.</item>
+/// <item>Surrounding whitespace is ignored; whitespace (also the no-break spaces of typeset text) may
+/// separate the number from prefix and unit, but not the prefix from the unit.</item>
 /// <item>Prefixes f p n u/µ m k M G T. "m" is milli and "M" mega; "K" is read as kilo too (RKM writes 4K7).</item>
 /// <item>Units by symbol (Ω F H V A Hz W s; case as SI writes them, plus "v" and "w") or by word,
 /// any case ("ohm", "kohm", "farad", "volts", "hz"). After a prefix, "f" and "h" are farad and henry ("100uf").
@@ -59,7 +60,8 @@ public static partial class EngineeringValue
         string integer, fraction;
         long exponent;
         var rkm = RkmPattern().Match(t);
-        if (rkm.Success && RkmMarker(rkm.Groups["mark"].Value[0], unit) is { } markExponent)
+        // A ratio has no RKM code: its letters would be prefixes, which a ratio does not take.
+        if (rkm.Success && unit.Symbol.Length > 0 && RkmMarker(rkm.Groups["mark"].Value[0], unit) is { } markExponent)
         {
             integer = rkm.Groups["int"].Value;
             fraction = rkm.Groups["frac"].Value;

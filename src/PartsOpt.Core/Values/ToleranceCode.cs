@@ -16,7 +16,7 @@ public static partial class ToleranceCode
     /// Reads a tolerance. Letters follow IEC 60062: B ±0.1 %, C ±0.25 %, D ±0.5 %, F ±1 %, G ±2 %, J ±5 %,
     /// K ±10 %, M ±20 %, Z +80/−20 %; for a capacitor under 10 pF (<paramref name="capacitanceF"/>) B, C, D
     /// and F are ±0.1, 0.25, 0.5 and 1 pF. Also read: "5%", "±5 %", "+/-5%", "+80/-20%", "-20/+80 %",
-    /// "±0.5 pF", and a bare fraction below 1 ("0.05"). A bare number of 1 or more ("5") is refused as
+    /// "±0.5 pF" or "0.5 pF" (absolute), and a bare fraction below 1 ("0.05"). A bare number of 1 or more ("5") is refused as
     /// ambiguous, and so is a one-sided "+5%".
     /// </summary>
     /// <exception cref="ToleranceFormatException">The text is not a tolerance; the message says why.</exception>
@@ -96,7 +96,7 @@ public static partial class ToleranceCode
             return $"'{t}' is not an IEC 60062 tolerance letter (B C D F G J K M Z)";
         }
 
-        if (t.StartsWith('±') && t.EndsWith('F') && EngineeringValue.TryParse(t[1..], Quantity.Capacitance, out var f))
+        if (t.EndsWith('F') && EngineeringValue.TryParse(t.TrimStart('±'), Quantity.Capacitance, out var f))
         {
             tolerance = Tolerance.Absolute(f);
             return null;

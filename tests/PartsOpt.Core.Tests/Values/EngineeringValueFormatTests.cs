@@ -88,4 +88,16 @@ public class EngineeringValueFormatTests
     [InlineData(double.NaN)]
     public void Rkm_refuses_negative_and_nan(double value) =>
         Assert.Throws<ArgumentOutOfRangeException>(() => EngineeringValue.FormatRkm(value, Quantity.Resistance));
+
+    [Theory]
+    [InlineData(Quantity.Resistance, "\u03A9")] // SI: ohm, GREEK CAPITAL OMEGA
+    [InlineData(Quantity.Capacitance, "F")]
+    [InlineData(Quantity.Inductance, "H")]
+    [InlineData(Quantity.Voltage, "V")]
+    [InlineData(Quantity.Current, "A")]
+    [InlineData(Quantity.Frequency, "Hz")]
+    [InlineData(Quantity.Power, "W")]
+    [InlineData(Quantity.Time, "s")]
+    [InlineData(Quantity.Ratio, "")]
+    public void Unit_symbols(Quantity quantity, string symbol) => Assert.Equal(symbol, EngineeringValue.UnitSymbol(quantity));
 }

@@ -18,6 +18,8 @@ public class EngineeringValueParseTests
     [InlineData("5.", Quantity.Voltage, 5)]
     [InlineData("0", Quantity.Resistance, 0)] // a 0 Ω link is a real part
     [InlineData("  4700\t", Quantity.Resistance, 4700)]
+    [InlineData("4.7\u00A0kΩ", Quantity.Resistance, 4700)] // NO-BREAK SPACE
+    [InlineData("4.7\u202FkΩ", Quantity.Resistance, 4700)] // NARROW NO-BREAK SPACE, as SI typesetting uses
     // SI prefixes and units.
     [InlineData("4.7kΩ", Quantity.Resistance, 4700)]
     [InlineData("4.7 kΩ", Quantity.Resistance, 4700)]
@@ -129,6 +131,9 @@ public class EngineeringValueParseTests
     [InlineData("47R", Quantity.Capacitance)] // R marks ohms only
     [InlineData("4.7 kΩ", Quantity.Ratio)]
     [InlineData("5 k%", Quantity.Ratio)]
+    [InlineData("4k7", Quantity.Ratio)] // a ratio takes no prefix, so no RKM code
+    [InlineData("500m", Quantity.Ratio)]
+    [InlineData("4R7", Quantity.Inductance)] // R marks ohms only, never µH
     [InlineData("5%", Quantity.Resistance)]
     [InlineData("1 Hz", Quantity.Time)]
     [InlineData("4\u06F7", Quantity.Resistance)] // Extended Arabic-Indic digit: ASCII digits only

@@ -58,9 +58,12 @@ public class ToleranceCodeTests
     public void Other_capacitors_and_letters_stay_relative(string letter, double capacitanceF, double fraction) =>
         Assert.Equal(Tolerance.Symmetric(fraction), ToleranceCode.Parse(letter, capacitanceF));
 
-    [Fact]
-    public void Reads_absolute_picofarads() =>
-        Assert.Equal(Tolerance.Absolute(0.5e-12), ToleranceCode.Parse("±0.5 pF"));
+    [Theory]
+    [InlineData("±0.5 pF", 0.5e-12)]
+    [InlineData("0.25pF", 0.25e-12)]
+    [InlineData("± 1 pF", 1e-12)]
+    public void Reads_absolute_picofarads(string text, double farads) =>
+        Assert.Equal(Tolerance.Absolute(farads), ToleranceCode.Parse(text));
 
     [Theory]
     [InlineData("")]
@@ -77,6 +80,8 @@ public class ToleranceCodeTests
     [InlineData("abc")]
     [InlineData("±150%")] // cannot fall by more than 100 %
     [InlineData("NaN")]
+    [InlineData("-0.5 pF")]
+    [InlineData("±5 nH")]
     public void Refuses_what_is_not_a_tolerance(string text)
     {
         var error = Assert.Throws<ToleranceFormatException>(() => ToleranceCode.Parse(text));

@@ -1,0 +1,129 @@
+using Microsoft.AspNetCore.Http.HttpResults;
+using Microsoft.EntityFrameworkCore;
+using PartsOpt.Api.Movements;
+using PartsOpt.Api.Persistence;
+using PartsOpt.Api.Parts.Csv;
+using PartsOpt.Api.Problems;
+
+namespace PartsOpt.Api.Parts;
+
+/// <summary>/api/v1/parts: the stock of parts. Quantities move only through the ledger (movements).</summary>
+public static class PartsEndpoints
+{
+    public static IEndpointRouteBuilder MapParts(this IEndpointRouteBuilder app)
+    {
+        var parts = app.MapGroup("/api/v1/parts").WithTags("Parts");
+
+        parts.MapGet("/", PartQueries.List).WithName("ListParts")
+            .WithSummary("Parts in part-number order, filtered by kind, value range and text; paged.");
+        parts.MapGet("/{partNumber}", Get).WithName("GetPart")
+            .WithSummary("One part with its stock figures.")
+            .ProducesProblem(StatusCodes.Status404NotFound);
+        parts.MapPost("/", Create).WithName("CreatePart")
+            .WithSummary("Adds a part; an initialQuantity is booked as a receipt.")
+            .ProducesProblem(StatusCodes.Status409Conflict)
+            .Validate<PartInput>(PartRules.Validate);
+        parts.MapPut("/{partNumber}", Update).WithName("UpdatePart")
+            .WithSummary("Replaces a part's fields (never its quantity; the kind cannot change).")
+            .ProducesProblem(StatusCodes.Status404NotFound)
+            .Validate<PartInput>(PartRules.Validate);
+        parts.MapDelete("/{partNumber}", Delete).WithName("DeletePart")
+            .WithSummary("Removes a part and its ledger; refused while any of it is reserved.")
+            .ProducesProblem(StatusCodes.Status404NotFound)
+            .ProducesProblem(StatusCodes.Status409Conflict);
+
+        parts.MapMovements();
+        parts.MapPartsCsv();
+        return app;
+    }
+
+    internal static ProblemHttpResult NoSuchPart(string partNumber) =>
+        TypedResults.Problem(statusCode: StatusCodes.Status404NotFound, title: "No such part.",
+            detail: $"There is no part '{partNumber}'.");
+
+    private static async Task<Results<Ok<PartDto>, ProblemHttpResult>> Get(
+        string partNumber, PartsOptDbContext db, CancellationToken ct)
+    {
+        var part = await db.Parts.AsNoTracking().SingleOrDefaultAsync(p => p.PartNumber == partNumber, ct);
+        if (part is null)
+            return NoSuchPart(partNumber);
+        var figures = await StockLedger.FiguresAsync(db, part.Id, ct);
+        return TypedResults.Ok(part.ToDto(figures.OnHand, figures.Reserved));
+    }
+
+    private static async Task<Results<Created<PartDto>, ValidationProblem, ProblemHttpResult>> Create(
+        PartInput input, PartsOptDbContext db, HttpContext http, TimeProvider clock, CancellationToken ct)
+    {
+        var partNumber = input.PartNumber!;
+        if (await db.Parts.AnyAsync(p => p.PartNumber == partNumber, ct))
+            return PartExists(partNumber);
+
+        var part = new Part { PartNumber = partNumber };
+        input.ApplyTo(part);
+        db.Parts.Add(part);
+        var initial = input.InitialQuantity ?? 0;
+        if (initial > 0)
+            StockLedger.Book(db, part, MovementKind.Receipt, initial, "initial stock", Actor.Of(http),
+                clock.GetUtcNow().UtcDateTime);
+        try
+        {
+            await db.SaveChangesAsync(ct); // the part and its first receipt in one transaction
+        }
+        catch (DbUpdateException)
+        {
+            db.ChangeTracker.Clear();
+            if (await db.Parts.AnyAsync(p => p.PartNumber == partNumber, ct))
+                return PartExists(partNumber); // lost a race with another create of the same number
+            throw;
+        }
+        return TypedResults.Created(PartMapping.PathOf(part.PartNumber), part.ToDto(initial, 0));
+    }
+
+    private static ProblemHttpResult PartExists(string partNumber) =>
+        TypedResults.Problem(statusCode: StatusCodes.Status409Conflict, title: "The part number is taken.",
+            detail: $"A part '{partNumber}' exists already; change it with PUT {PartMapping.PathOf(partNumber)}.");
+
+    private static async Task<Results<Ok<PartDto>, ValidationProblem, ProblemHttpResult>> Update(
+        string partNumber, PartInput input, PartsOptDbContext db, CancellationToken ct)
+    {
+        var part = await db.Parts.SingleOrDefaultAsync(p => p.PartNumber == partNumber, ct);
+        if (part is null)
+            return NoSuchPart(partNumber);
+
+        var errors = new Dictionary<string, string[]>();
+        if (!string.Equals(input.PartNumber, part.PartNumber, StringComparison.OrdinalIgnoreCase))
+            errors["partNumber"] = [$"The body's part number must be the URL's ('{part.PartNumber}'); part numbers are not renamed."];
+        if (PartKinds.TryParse(input.Kind, out var kind) && kind != part.Kind)
+            errors["kind"] = [$"This part is a {PartKinds.Name(part.Kind)}; a kind cannot change (delete and create instead)."];
+        if (input.InitialQuantity is not null)
+            errors["initialQuantity"] = ["Quantity changes only through movements (POST .../movements)."];
+        if (errors.Count > 0)
+            return TypedResults.ValidationProblem(errors);
+
+        input.ApplyTo(part);
+        await db.SaveChangesAsync(ct);
+        var figures = await StockLedger.FiguresAsync(db, part.Id, ct);
+        return TypedResults.Ok(part.ToDto(figures.OnHand, figures.Reserved));
+    }
+
+    // Deleting removes the part AND its ledger rows, in one transaction, and only while nothing is
+    // reserved: a reservation belongs to a build that still needs the part. The ledger is append-only for
+    // as long as its part exists; a deleted part's history goes with it (export first to keep a record).
+    private static async Task<Results<NoContent, ProblemHttpResult>> Delete(
+        string partNumber, PartsOptDbContext db, CancellationToken ct)
+    {
+        await using var transaction = await db.Database.BeginTransactionAsync(ct);
+        var part = await db.Parts.AsNoTracking().SingleOrDefaultAsync(p => p.PartNumber == partNumber, ct);
+        if (part is null)
+            return NoSuchPart(partNumber);
+        var figures = await StockLedger.FiguresAsync(db, part.Id, ct);
+        if (figures.Reserved > 0)
+            return TypedResults.Problem(statusCode: StatusCodes.Status409Conflict, title: "The part is reserved.",
+                detail: $"{figures.Reserved} of '{part.PartNumber}' are reserved for builds; release them first.");
+
+        await db.Movements.Where(m => m.PartId == part.Id).ExecuteDeleteAsync(ct);
+        await db.Parts.Where(p => p.Id == part.Id).ExecuteDeleteAsync(ct);
+        await transaction.CommitAsync(ct);
+        return TypedResults.NoContent();
+    }
+}

@@ -1,0 +1,18 @@
+using Microsoft.EntityFrameworkCore;
+using PartsOpt.Api.Movements;
+using PartsOpt.Api.Parts;
+
+namespace PartsOpt.Api.Persistence;
+
+/// <summary>
+/// The service's database. Schema changes are migrations, created with the local tool from the repo root:
+/// <c>dotnet ef migrations add &lt;Name&gt; --project src/PartsOpt.Api --output-dir Persistence/Migrations</c>
+/// </summary>
+public sealed class PartsOptDbContext(DbContextOptions<PartsOptDbContext> options) : DbContext(options)
+{
+    public DbSet<Part> Parts => Set<Part>();
+    public DbSet<Movement> Movements => Set<Movement>();
+
+    protected override void OnModelCreating(ModelBuilder modelBuilder) =>
+        modelBuilder.ApplyConfigurationsFromAssembly(typeof(PartsOptDbContext).Assembly);
+}
