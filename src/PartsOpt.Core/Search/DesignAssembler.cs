@@ -110,7 +110,7 @@ internal static class DesignAssembler
     private static string Designator(int package, int section) =>
         string.Create(CultureInfo.InvariantCulture, $"U{package}{(char)('A' + section)}");
 
-    private static string Unit(string role) => Roles.KindOf(role) == PartKind.Capacitor ? "F" : "Ω";
+    private static string Unit(string role) => Roles.KindOf(role) == RoleKind.Capacitor ? "F" : "Ω";
 
     private static string Say(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

@@ -15,7 +15,7 @@ internal sealed record StockChoice(IReadOnlyList<int> PartIndices, IReadOnlyList
         : AddsUp ? Parts[0].Value + Parts[1].Value : Parts[0].Value * Parts[1].Value / (Parts[0].Value + Parts[1].Value);
 
     // Resistors add in series, capacitors in parallel.
-    private bool AddsUp => Series == (Parts[0].Kind != PartKind.Capacitor);
+    private bool AddsUp => Series == (Parts[0].Kind != RoleKind.Capacitor);
 
     /// <summary>Part numbers as the BOM lists them against the role.</summary>
     public IReadOnlyList<string> PartNumbers => Parts.Select(p => p.PartNumber).ToList();
@@ -53,11 +53,11 @@ internal sealed record StockChoice(IReadOnlyList<int> PartIndices, IReadOnlyList
 /// </summary>
 internal sealed class RoleOptions
 {
-    private readonly Dictionary<PartKind, List<StockChoice>> byKind = [];
+    private readonly Dictionary<RoleKind, List<StockChoice>> byKind = [];
 
     public RoleOptions(IReadOnlyList<StockPart> parts, bool allowCombinations)
     {
-        foreach (var kind in Enum.GetValues<PartKind>())
+        foreach (var kind in Enum.GetValues<RoleKind>())
         {
             var indices = Enumerable.Range(0, parts.Count)
                 .Where(i => parts[i].Kind == kind && parts[i].Value > 0 && double.IsFinite(parts[i].Value))
@@ -65,14 +65,14 @@ internal sealed class RoleOptions
                 .ThenBy(i => i)
                 .ToList();
             var choices = indices.Select(i => new StockChoice([i], [parts[i]], false)).ToList();
-            if (allowCombinations && kind != PartKind.Potentiometer)
+            if (allowCombinations && kind != RoleKind.Potentiometer)
             {
                 foreach (var series in new[] { true, false })
                     for (var a = 0; a < indices.Count; a++)
                         for (var b = a; b < indices.Count; b++)
                         {
                             var (i, j) = (indices[a], indices[b]);
-                            if (kind == PartKind.Capacitor && parts[i].Dielectric != parts[j].Dielectric)
+                            if (kind == RoleKind.Capacitor && parts[i].Dielectric != parts[j].Dielectric)
                                 continue;
                             choices.Add(new StockChoice([i, j], [parts[i], parts[j]], series));
                         }

@@ -41,7 +41,7 @@ internal sealed class SearchContext
     /// the whole supply when its rating is known (common practice: one 100 nF X7R beside each package).
     /// </summary>
     public static bool FitsDecoupling(StockPart part, Supply supply) =>
-        part.Kind == PartKind.Capacitor
+        part.Kind == RoleKind.Capacitor
         && part.Value >= DecouplingMinF * (1 - 1e-9) && part.Value <= DecouplingMaxF * (1 + 1e-9)
         && part.Dielectric is null or Dielectric.C0G or Dielectric.X7R or Dielectric.X5R
         && (part.VoltageRatingV is not { } rating || rating >= supply.SpanV);

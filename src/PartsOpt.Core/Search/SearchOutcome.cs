@@ -21,7 +21,8 @@ public enum SearchStatus
 /// <summary>How to tune the search itself.</summary>
 /// <param name="TimeLimit">Wall time for the whole search (default 30 s).</param>
 /// <param name="Seed">CP-SAT random seed (default 1). Results do not depend on it when the search completes.</param>
-/// <param name="YieldCheck">The yield post-check; required when the requirement asks for a yield.</param>
+/// <param name="YieldCheck">The yield post-check when the requirement asks for a yield; null for
+/// <see cref="ToleranceYieldCheck"/> (extreme-value corners or Monte Carlo from the tolerance analyses).</param>
 public sealed record SearchOptions(TimeSpan? TimeLimit = null, int Seed = 1, IYieldCheck? YieldCheck = null)
 {
     /// <summary>The time limit in force.</summary>
@@ -79,7 +80,7 @@ public sealed record NearMiss(
 /// <param name="Value">Nominal value, Ω or F, from <paramref name="Series"/>.</param>
 /// <param name="Series">The preferred-number series the value comes from ("E24" resistors, "E12" capacitors).</param>
 /// <param name="Explanation">What it achieves and what would still be missing, in a designer's words.</param>
-public sealed record PurchaseSuggestion(string Role, PartKind Kind, double Value, string Series, string Explanation);
+public sealed record PurchaseSuggestion(string Role, RoleKind Kind, double Value, string Series, string Explanation);
 
 /// <summary>What the search found for one topology.</summary>
 /// <param name="Topology">The topology.</param>

@@ -139,6 +139,18 @@ internal sealed class SearchVariant
     };
 
     /// <summary>
+    /// The smallest slots a yield shortfall may be cut on: the roles of the one failed figure that depends on
+    /// the fewest (frequency on the frequency roles, ramp amplitude on the ramp roles); every role otherwise.
+    /// </summary>
+    public IReadOnlyList<int> ScopeOfFigures(IReadOnlyList<string>? figures) =>
+        (figures ?? []).Select(f => f switch
+        {
+            FigureNames.Frequency => ScopeOf(MissedTarget.Frequency),
+            FigureNames.TrianglePeakToPeak => ScopeOf(MissedTarget.TriangleAmplitude),
+            _ => RoleSlots,
+        }).Append(RoleSlots).MinBy(s => s.Count)!;
+
+    /// <summary>
     /// The slots a failed check of the engine depends on (a superset, read from its formulas): the
     /// switching and edge checks on the frequency roles, the integrator and input-range checks of the
     /// analog sections on the ramp roles, a polarity check on its own role; anything else on every role.

@@ -13,7 +13,7 @@ namespace PartsOpt.Search;
 /// <param name="Tolerance">Symmetric tolerance as a fraction (0.05 for ±5 %).</param>
 /// <param name="UnitCost">Cost of one piece.</param>
 /// <param name="Available">Pieces on hand less reserved.</param>
-public sealed record StockPart(string PartNumber, PartKind Kind, double Value, double Tolerance, decimal UnitCost, int Available)
+public sealed record StockPart(string PartNumber, RoleKind Kind, double Value, double Tolerance, decimal UnitCost, int Available)
 {
     /// <summary>Temperature coefficient of a resistor or potentiometer, ±ppm/K; null when not recorded.</summary>
     public double? TempcoPpmPerK { get; init; }
@@ -28,7 +28,7 @@ public sealed record StockPart(string PartNumber, PartKind Kind, double Value, d
     public double? VoltageRatingV { get; init; }
 
     /// <summary>The part as the engine sees it in a role.</summary>
-    public RolePart ToRolePart() => Kind == PartKind.Capacitor && Dielectric is { } dielectric
+    public RolePart ToRolePart() => Kind == RoleKind.Capacitor && Dielectric is { } dielectric
         ? RolePart.Capacitor(Value, Tolerance, dielectric, VoltageRatingV, PartNumber)
         : new RolePart(Value, Tolerance, Tolerance,
             TempcoPpmPerK is { } ppm ? Analysis.TemperatureBehaviour.Linear(ppm) : null,

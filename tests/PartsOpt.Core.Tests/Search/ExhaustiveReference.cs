@@ -20,7 +20,7 @@ internal static class ExhaustiveReference
         var candidates = new List<(decimal Total, decimal PerBoard, Func<CircuitDesign> Build, string Text)>();
         var supply = requirement.Supply;
         bool Rated(OpAmpSpec s) => supply.SpanV >= s.SupplyMinV && supply.SpanV <= s.SupplyMaxV;
-        var decouplers = stock.Parts.Where(p => p.Kind == PartKind.Capacitor && p.Value >= 100e-9 * (1 - 1e-9) && p.Value <= 1e-6 * (1 + 1e-9)
+        var decouplers = stock.Parts.Where(p => p.Kind == RoleKind.Capacitor && p.Value >= 100e-9 * (1 - 1e-9) && p.Value <= 1e-6 * (1 + 1e-9)
             && p.Dielectric is null or Dielectric.C0G or Dielectric.X7R or Dielectric.X5R
             && (p.VoltageRatingV is null || p.VoltageRatingV >= supply.SpanV)).Cast<StockPart?>().ToList();
         if (decouplers.Count == 0)

@@ -53,7 +53,7 @@ public class InfeasibleAndLimitsTests
 
         var purchase = Assert.IsType<PurchaseSuggestion>(report.Purchase);
         Assert.Equal(Roles.OscR, purchase.Role);
-        Assert.Equal(PartKind.Resistor, purchase.Kind);
+        Assert.Equal(RoleKind.Resistor, purchase.Kind);
         Assert.Equal("E24", purchase.Series);
         Precision.AlmostEqualRelative(20e3, purchase.Value, 1e-12, "E24 value to buy");
 
@@ -80,7 +80,7 @@ public class InfeasibleAndLimitsTests
     public void StockTooShortForTheBuildIsTheBlockingReason()
     {
         var (requirement, stock) = MissingTwentyKilohm();
-        var scarce = stock with { Parts = stock.Parts.Select(p => p.Kind == PartKind.Potentiometer ? p with { Available = 9 } : p).ToList() };
+        var scarce = stock with { Parts = stock.Parts.Select(p => p.Kind == RoleKind.Potentiometer ? p with { Available = 9 } : p).ToList() };
         var outcome = DesignSearch.Run(requirement, scarce, Generous);
 
         Assert.Equal(SearchStatus.Infeasible, outcome.Status);

@@ -28,14 +28,14 @@ internal static class TestStock
         IsComparator: true);
 
     public static StockPart Resistor(string partNumber, double ohms, decimal cost, int available = 10_000) =>
-        new(partNumber, PartKind.Resistor, ohms, 0.01, cost, available) { TempcoPpmPerK = 100, PowerRatingW = 0.125 };
+        new(partNumber, RoleKind.Resistor, ohms, 0.01, cost, available) { TempcoPpmPerK = 100, PowerRatingW = 0.125 };
 
     public static StockPart Capacitor(string partNumber, double farads, decimal cost, Dielectric dielectric = Dielectric.C0G,
         int available = 10_000) =>
-        new(partNumber, PartKind.Capacitor, farads, 0.05, cost, available) { Dielectric = dielectric, VoltageRatingV = 50 };
+        new(partNumber, RoleKind.Capacitor, farads, 0.05, cost, available) { Dielectric = dielectric, VoltageRatingV = 50 };
 
     public static StockPart Pot(string partNumber, double ohms, decimal cost, int available = 10_000) =>
-        new(partNumber, PartKind.Potentiometer, ohms, 0.2, cost, available) { PowerRatingW = 0.25 };
+        new(partNumber, RoleKind.Potentiometer, ohms, 0.2, cost, available) { PowerRatingW = 0.25 };
 
     public static StockOpAmp OpAmp(string partNumber, OpAmpSpec spec, decimal cost, int available = 10_000) =>
         new(partNumber, spec, cost, available);
