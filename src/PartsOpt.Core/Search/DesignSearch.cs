@@ -31,8 +31,7 @@ public static class DesignSearch
         var deadline = DateTime.UtcNow + options.EffectiveTimeLimit;
         var context = new SearchContext(requirement, stock);
         var notes = new List<string>();
-        if (requirement.Yield is not null && options.YieldCheck is null)
-            notes.Add("A yield target was given but no yield check was supplied: designs are judged on nominal values only.");
+        var yieldCheck = requirement.Yield is null ? null : options.YieldCheck ?? new ToleranceYieldCheck();
         if (context.DecouplingCapacitors.Count == 0)
             notes.Add("No stocked capacitor fits supply decoupling (ceramic, 100 nF … 1 µF, rated for the supply): " +
                 "buy one 100 nF X7R per op-amp package per board.");
@@ -65,7 +64,7 @@ public static class DesignSearch
                 var solver = new SelectionSolver(variant.Problem);
                 variant.SweptScopes.Clear();
                 var run = solver.Run(
-                    choice => Verify(variant, choice, options.YieldCheck, tracker),
+                    choice => Verify(variant, choice, yieldCheck, tracker),
                     requirement.MaxResults,
                     Cutoff(found, requirement.MaxResults, best.TryGetValue(variant.Topology, out var b) ? b : null),
                     variant.RoleSlots,
@@ -144,8 +143,8 @@ public static class DesignSearch
             if (result.Yield < yield.Target)
             {
                 tracker.YieldShort(variant, result.Detail);
-                return new SelectionVerdict(false, variant.RoleSlots, judgement.FrequencyError, judgement.Margin,
-                    result.Detail, judgement);
+                return new SelectionVerdict(false, variant.ScopeOfFigures(result.FailedFigures), judgement.FrequencyError,
+                    judgement.Margin, result.Detail, judgement);
             }
         }
 

@@ -16,4 +16,7 @@ public interface IYieldCheck
 /// <summary>What a yield check found.</summary>
 /// <param name="Yield">Estimated fraction of boards inside every band (1 for a worst case that holds).</param>
 /// <param name="Detail">How it was estimated and what limited it, in plain words.</param>
-public sealed record YieldResult(double Yield, string Detail);
+/// <param name="FailedFigures">When known for certain: figures whose band alone fails the target, each
+/// decided by its own parts only (a worst case). The search then cuts only the roles those figures depend
+/// on; null when the shortfall cannot be pinned on single figures.</param>
+public sealed record YieldResult(double Yield, string Detail, IReadOnlyList<string>? FailedFigures = null);

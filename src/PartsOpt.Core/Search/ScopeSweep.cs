@@ -11,24 +11,37 @@ namespace PartsOpt.Search;
 internal static class ScopeSweep
 {
     /// <summary>Largest sweep, in analyses; past it the scope is left to the lazy loop.</summary>
-    public const int MaxAnalyses = 20_000;
+    public const int MaxAnalyses = 8_000;
 
     public static IReadOnlyList<(int[] Choice, IReadOnlyList<int> Slots)> Sweep(SearchVariant variant, int[] choice, IReadOnlyList<int> scope)
     {
-        if (scope.Count == 0 || scope.Count >= variant.RoleNames.Count || !variant.SweptScopes.Add(string.Join(',', scope)))
+        if (scope.Count == 0 || scope.Count >= variant.RoleNames.Count)
             return [];
-        var sizes = scope.Select(s => variant.Problem.Slots[s].Options.Count).ToArray();
-        if (sizes.Aggregate(1L, (product, n) => product * n) > MaxAnalyses)
+        // Sweep the whole scope if it is small enough, else the largest part of it that is (smallest
+        // slots first), holding the rest of the scope at the failed design's choices.
+        var swept = new List<int>();
+        var product = 1L;
+        foreach (var slot in scope.OrderBy(s => variant.Problem.Slots[s].Options.Count).ThenBy(s => s))
+        {
+            var size = variant.Problem.Slots[slot].Options.Count;
+            if (product * size > MaxAnalyses)
+                break;
+            product *= size;
+            swept.Add(slot);
+        }
+        var held = scope.Except(swept).Select(s => $"{s}={choice[s]}");
+        if (swept.Count == 0 || !variant.SweptScopes.Add(string.Join(',', scope) + "|" + string.Join(',', held)))
             return [];
+        var sizes = swept.Select(s => variant.Problem.Slots[s].Options.Count).ToArray();
 
         var cuts = new List<(int[], IReadOnlyList<int>)>();
         var trial = (int[])choice.Clone();
-        var digits = new int[scope.Count];
+        var digits = new int[swept.Count];
         var requirement = variant.Context.Requirement;
         while (true)
         {
-            for (var i = 0; i < scope.Count; i++)
-                trial[scope[i]] = digits[i];
+            for (var i = 0; i < swept.Count; i++)
+                trial[swept[i]] = digits[i];
             try
             {
                 var judgement = DesignJudge.Judge(requirement, variant.DesignOf(trial));

@@ -21,7 +21,8 @@ public enum SearchStatus
 /// <summary>How to tune the search itself.</summary>
 /// <param name="TimeLimit">Wall time for the whole search (default 30 s).</param>
 /// <param name="Seed">CP-SAT random seed (default 1). Results do not depend on it when the search completes.</param>
-/// <param name="YieldCheck">The yield post-check; required when the requirement asks for a yield.</param>
+/// <param name="YieldCheck">The yield post-check when the requirement asks for a yield; null for
+/// <see cref="ToleranceYieldCheck"/> (extreme-value corners or Monte Carlo from the tolerance analyses).</param>
 public sealed record SearchOptions(TimeSpan? TimeLimit = null, int Seed = 1, IYieldCheck? YieldCheck = null)
 {
     /// <summary>The time limit in force.</summary>

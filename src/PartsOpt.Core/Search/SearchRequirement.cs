@@ -66,11 +66,6 @@ public enum YieldMethod
 /// <param name="Samples">Monte Carlo samples (default 2000).</param>
 public sealed record YieldRequirement(double Target, YieldMethod Method = YieldMethod.WorstCase, int Samples = 2000);
 
-/// <summary>Ambient range the board must work over, °C.</summary>
-/// <param name="MinCelsius">Lowest ambient.</param>
-/// <param name="MaxCelsius">Highest ambient.</param>
-public sealed record TemperatureRange(double MinCelsius, double MaxCelsius);
-
 /// <summary>
 /// What the team wants built: "a 20 kHz PWM generator, duty adjustable 5–95 %, 100 units".
 /// </summary>
@@ -89,11 +84,12 @@ public sealed record SearchRequirement(Supply Supply, Band Frequency, DutyRequir
     /// <summary>Topologies to consider; null or empty for all three.</summary>
     public IReadOnlyList<TopologyKind>? Topologies { get; init; }
 
-    /// <summary>Yield target; null for nominal designs only. See <see cref="IYieldCheck"/>.</summary>
+    /// <summary>Yield target; null for nominal designs only. Judged by <see cref="ToleranceYieldCheck"/> unless
+    /// <see cref="SearchOptions.YieldCheck"/> supplies another <see cref="IYieldCheck"/>.</summary>
     public YieldRequirement? Yield { get; init; }
 
-    /// <summary>Ambient range, passed to the yield check; null for 25 °C.</summary>
-    public TemperatureRange? Temperature { get; init; }
+    /// <summary>Ambient range the board must work over, folded into the yield check; null for 25 °C alone.</summary>
+    public Analysis.TemperatureRange? Temperature { get; init; }
 
     /// <summary>Let a resistor or capacitor role take two stocked parts in series or parallel.</summary>
     public bool AllowCombinations { get; init; }

@@ -139,6 +139,18 @@ internal sealed class SearchVariant
     };
 
     /// <summary>
+    /// The smallest slots a yield shortfall may be cut on: the roles of the one failed figure that depends on
+    /// the fewest (frequency on the frequency roles, ramp amplitude on the ramp roles); every role otherwise.
+    /// </summary>
+    public IReadOnlyList<int> ScopeOfFigures(IReadOnlyList<string>? figures) =>
+        (figures ?? []).Select(f => f switch
+        {
+            FigureNames.Frequency => ScopeOf(MissedTarget.Frequency),
+            FigureNames.TrianglePeakToPeak => ScopeOf(MissedTarget.TriangleAmplitude),
+            _ => RoleSlots,
+        }).Append(RoleSlots).MinBy(s => s.Count)!;
+
+    /// <summary>
     /// The slots a failed check of the engine depends on (a superset, read from its formulas): the
     /// switching and edge checks on the frequency roles, the integrator and input-range checks of the
     /// analog sections on the ramp roles, a polarity check on its own role; anything else on every role.
@@ -169,6 +181,8 @@ internal sealed class SearchVariant
         var best = scopes.MinBy(scope => scope.Count)!;
         var verdict = new SelectionVerdict(false, best, judgement.FrequencyError, judgement.Margin,
             string.Join("; ", judgement.Reasons), judgement);
+        if (best.Count > 2 && MonotoneCut(choice, judgement) is { } monotone)
+            return verdict with { CutSlots = monotone.Scope, CutEscapeSlot = monotone.Slot, CutEscape = monotone.Better };
         if (!judgement.Missed.Contains(MissedTarget.DutyRange) || best.Count < RoleSlots.Count)
             return verdict;
         var ramp = Slots(RampRoles());
@@ -178,6 +192,33 @@ internal sealed class SearchVariant
             return verdict;
         var escape = Thresholds.Escape(choice, judgement.MissesLowDuty, judgement.MissesHighDuty);
         return verdict with { CutSlots = ramp, CutGroup = ThresholdGroup, CutEscape = escape };
+    }
+
+    /// <summary>
+    /// A cut for a failed check that falls as one resistor grows, everything else in its scope held: the
+    /// power in the timing or integrator input resistor (the voltage across it does not depend on it) and
+    /// the oscillator output's current (through osc.r). Larger values of that resistor escape the cut.
+    /// </summary>
+    private (IReadOnlyList<int> Scope, int Slot, IReadOnlyList<int> Better)? MonotoneCut(int[] choice, DesignJudgement judgement)
+    {
+        foreach (var check in judgement.FailedChecks)
+        {
+            var (role, roles) = check switch
+            {
+                "power (osc.r)" => (Roles.OscR, FrequencyRoles()),
+                "power (int.r)" => (Roles.IntR, RampRoles()),
+                "output current (oscillator)" when Topology != TopologyKind.Loop => (Roles.OscR, RampRoles()),
+                _ => (null, []),
+            };
+            var slot = role is null ? -1 : SlotOf(role);
+            if (slot < 0)
+                continue;
+            var options = Problem.Slots[slot].Options;
+            var current = ((StockChoice)options[choice[slot]].Tag!).Value;
+            var better = Enumerable.Range(0, options.Count).Where(o => ((StockChoice)options[o].Tag!).Value > current).ToList();
+            return (Slots(roles), slot, better);
+        }
+        return null;
     }
 
     /// <summary>True when the ramp alone leaves the comparator's input range (so any threshold fails too).</summary>

@@ -129,6 +129,9 @@ internal sealed class SelectionSolver
                 var slots = verdict.CutSlots ?? Enumerable.Range(0, chosen.Length).ToArray();
                 if (verdict is { CutGroup: { } group, CutEscape: { } escape })
                     model.AddBoolOr(slots.Select(s => chosen[s][choice[s]].Not()).Concat(escape.Select(k => (ILiteral)groupVars[group][k])));
+                else if (verdict is { CutEscapeSlot: { } slot, CutEscape: { } better })
+                    model.AddBoolOr(slots.Where(s => s != slot).Select(s => chosen[s][choice[s]].Not())
+                        .Concat(better.Select(o => (ILiteral)chosen[slot][o])));
                 else
                     Forbid(choice, slots);
                 foreach (var (other, otherSlots) in verdict.MoreCuts)

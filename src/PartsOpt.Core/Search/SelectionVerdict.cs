@@ -25,8 +25,15 @@ internal sealed record SelectionVerdict(
     /// </summary>
     public int? CutGroup { get; init; }
 
-    /// <summary>Tuples of <see cref="CutGroup"/> that escape the cut.</summary>
+    /// <summary>Tuples of <see cref="CutGroup"/> (or options of <see cref="CutEscapeSlot"/>) that escape the cut.</summary>
     public IReadOnlyList<int>? CutEscape { get; init; }
+
+    /// <summary>
+    /// With <see cref="CutEscape"/>: a slot inside <see cref="CutSlots"/> whose other options may lift the
+    /// cut: a figure monotone in that part's value (power in a resistor, an output's current) rules out
+    /// every option no better than the one that failed.
+    /// </summary>
+    public int? CutEscapeSlot { get; init; }
 
     /// <summary>
     /// Further no-good cuts the verifier found while it was at it (other assignments of the same slots it
