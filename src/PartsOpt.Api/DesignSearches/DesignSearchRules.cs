@@ -197,7 +197,7 @@ public static class DesignSearchRules
                 ? new YieldRequirement(y.Target!.Value, y.Method == MonteCarlo ? YieldMethod.MonteCarlo : YieldMethod.WorstCase,
                     y.Samples!.Value)
                 : null,
-            Temperature = input.Temperature is { } range ? new TemperatureRange(range.Min!.Value, range.Max!.Value) : null,
+            Temperature = input.Temperature is { } range ? new PartsOpt.Analysis.TemperatureRange(range.Min!.Value, range.Max!.Value) : null,
             AllowCombinations = input.AllowCombinations!.Value,
             Costs = new CostModel(input.CostModel!.Placement!.Value, input.CostModel.LineItemSetup!.Value),
             MaxResults = input.MaxResults!.Value,
