@@ -77,7 +77,8 @@ public static class CircuitEndpoints
 
     private static string RequestField(string libraryField) => libraryField switch
     {
-        _ when libraryField.StartsWith("amplifier", StringComparison.Ordinal) => "opAmp" + libraryField["amplifier".Length..],
+        _ when libraryField.StartsWith("amplifier", StringComparison.Ordinal) => "opAmp.limits" + libraryField["amplifier".Length..],
+        _ when libraryField.StartsWith("comparator", StringComparison.Ordinal) => "comparator.limits" + libraryField["comparator".Length..],
         "dutyControl" => "duty.controlRange",
         _ => libraryField,
     };

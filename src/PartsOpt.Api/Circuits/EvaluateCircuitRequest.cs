@@ -46,25 +46,14 @@ public sealed record SupplyInput
     public double? Negative { get; init; }
 }
 
-/// <summary>An op-amp or comparator: a stocked part, or its limits given here (SI units).</summary>
+/// <summary>An op-amp or comparator: a stocked part, or its limits written out.</summary>
 public sealed record OpAmpInput
 {
-    /// <summary>A stocked op-amp; when given, no other field may be.</summary>
+    /// <summary>A stocked op-amp or comparator.</summary>
     public string? PartNumber { get; init; }
-    public int? SectionsPerPackage { get; init; }
-    public double? SupplyMinV { get; init; }
-    public double? SupplyMaxV { get; init; }
-    public double? GainBandwidthHz { get; init; }
-    public double? SlewRateVPerS { get; init; }
-    public double? OutputHeadroomHighV { get; init; }
-    public double? OutputHeadroomLowV { get; init; }
-    public double? InputHeadroomHighV { get; init; }
-    public double? InputHeadroomLowV { get; init; }
-    public double? InputOffsetV { get; init; }
-    public double? MaxOutputCurrentA { get; init; }
-    public double? QuiescentCurrentPerSectionA { get; init; }
-    public bool? IsComparator { get; init; }
-    public bool? IsOpenDrain { get; init; }
+
+    /// <summary>Instead of a part number: the limits, in the same shape as a part's "opAmp" object.</summary>
+    public OpAmpFields? Limits { get; init; }
 }
 
 /// <summary>How the duty is adjusted.</summary>
