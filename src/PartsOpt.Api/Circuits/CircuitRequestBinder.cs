@@ -247,6 +247,10 @@ internal static class CircuitRequestBinder
         if (input.Distribution is { } d && !Enum.TryParse(d, ignoreCase: true, out distribution))
             errors.Add("analysis.distribution", $"'{d}' is not a distribution; use uniform or normal.");
 
+        var headroomSpread = input.HeadroomSpread ?? 0;
+        if (!double.IsFinite(headroomSpread) || headroomSpread is < 0 or >= 1)
+            errors.Add("analysis.headroomSpread", "A fraction from 0 up to (not including) 1: 0.2 for ±20 %.");
+
         PartsOpt.Analysis.TemperatureRange? temperature = null;
         if (input.Temperature is { } t
             && errors.Finite("analysis.temperature.min", t.Min, required: true)
@@ -289,7 +293,7 @@ internal static class CircuitRequestBinder
 
         return new AnalysisPlan(
             methods.Contains("worstCase"), methods.Contains("rootSumSquare"), methods.Contains("monteCarlo"),
-            samples, input.Seed ?? 1, distribution, temperature, bands, points, setting, curvePoints);
+            samples, input.Seed ?? 1, distribution, headroomSpread, temperature, bands, points, setting, curvePoints);
     }
 }
 
@@ -301,6 +305,7 @@ internal sealed record AnalysisPlan(
     int Samples,
     int Seed,
     SpreadDistribution Distribution,
+    double HeadroomSpread,
     PartsOpt.Analysis.TemperatureRange? Temperature,
     IReadOnlyList<FigureBand> Bands,
     int WaveformPoints,

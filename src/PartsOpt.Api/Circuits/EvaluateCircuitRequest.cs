@@ -116,6 +116,12 @@ public sealed record AnalysisInput
     /// <summary>How parts spread inside their tolerance: "uniform" (default) or "normal" (band = ±3σ).</summary>
     public string? Distribution { get; init; }
 
+    /// <summary>
+    /// Spread of the op-amps' output headroom as a fraction (0.2 for ±20 % of the stated headroom), for data
+    /// sheets that give it as typical; default 0 (taken as stated).
+    /// </summary>
+    public double? HeadroomSpread { get; init; }
+
     /// <summary>Temperature range in °C for drift (and for worst case and Monte Carlo when given).</summary>
     public RangeInput? Temperature { get; init; }
 
