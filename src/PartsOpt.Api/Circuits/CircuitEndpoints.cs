@@ -52,6 +52,8 @@ public static class CircuitEndpoints
     private static EvaluateCircuitResponse Answer(CircuitDesign design, CircuitEvaluation evaluation, AnalysisPlan plan)
     {
         IFigureModel model = CircuitFigureModel.For(design).WithDistribution(plan.Distribution);
+        if (plan.HeadroomSpread > 0)
+            model = model.WithTolerance(IsHeadroom, plan.HeadroomSpread);
         var sensitivity = new SensitivityAnswer(SensitivityAnalysis.Analyse(model), FrequencySensitivity.Analytic(design));
         return new EvaluateCircuitResponse(
             design.Topology.ToWireName(),
@@ -75,9 +77,13 @@ public static class CircuitEndpoints
             plan.WaveformPoints > 0 ? Simulate(design, evaluation, plan) : null);
     }
 
+    private static bool IsHeadroom(string parameter) => parameter is CircuitFigureModel.AmpHeadroomHigh
+        or CircuitFigureModel.AmpHeadroomLow or CircuitFigureModel.CmpHeadroomHigh or CircuitFigureModel.CmpHeadroomLow;
+
     private static string RequestField(string libraryField) => libraryField switch
     {
-        _ when libraryField.StartsWith("amplifier", StringComparison.Ordinal) => "opAmp" + libraryField["amplifier".Length..],
+        _ when libraryField.StartsWith("amplifier", StringComparison.Ordinal) => "opAmp.limits" + libraryField["amplifier".Length..],
+        _ when libraryField.StartsWith("comparator", StringComparison.Ordinal) => "comparator.limits" + libraryField["comparator".Length..],
         "dutyControl" => "duty.controlRange",
         _ => libraryField,
     };

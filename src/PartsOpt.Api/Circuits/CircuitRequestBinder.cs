@@ -87,43 +87,33 @@ internal static class CircuitRequestBinder
             return null;
         }
 
-        if (input.PartNumber is { } partNumber)
+        if ((input.PartNumber is null) == (input.Limits is null))
         {
-            var part = await db.Parts.AsNoTracking().SingleOrDefaultAsync(p => p.PartNumber == partNumber, ct);
-            if (part is null)
-                errors.Add($"{field}.partNumber", $"There is no part '{partNumber}' in stock.");
-            else if (part.Kind != PartKind.OpAmp)
-                errors.Add($"{field}.partNumber", $"Part '{partNumber}' is a {PartKinds.Name(part.Kind)}, not an op-amp.");
-            else
-                return PartEngineering.ToOpAmpSpec(part);
+            errors.Add(field, "Give a stocked partNumber or the limits, one of the two.");
             return null;
         }
 
-        var before = errors.Count;
-        double Need(string name, double? value)
+        if (input.Limits is { } limits)
         {
-            errors.Finite($"{field}.{name}", value, required: true);
-            return value ?? 0;
+            // The same rules and the same row-to-spec mapping as a stocked op-amp.
+            var before = errors.Count;
+            PartRules.ValidateOpAmp(errors, limits, $"{field}.limits");
+            if (errors.Count > before)
+                return null;
+            var row = new Part { PartNumber = "(given)" };
+            new PartInput { Kind = PartKinds.Name(PartKind.OpAmp), OpAmp = limits }.ApplyTo(row);
+            return PartEngineering.ToOpAmpSpec(row) with { PartNumber = null };
         }
 
-        if (input.SectionsPerPackage is null)
-            errors.Add($"{field}.sectionsPerPackage", "Required.");
-        var spec = new OpAmpSpec(
-            input.SectionsPerPackage ?? 1,
-            Need("supplyMinV", input.SupplyMinV),
-            Need("supplyMaxV", input.SupplyMaxV),
-            Need("gainBandwidthHz", input.GainBandwidthHz),
-            Need("slewRateVPerS", input.SlewRateVPerS),
-            Need("outputHeadroomHighV", input.OutputHeadroomHighV),
-            Need("outputHeadroomLowV", input.OutputHeadroomLowV),
-            Need("inputHeadroomHighV", input.InputHeadroomHighV),
-            Need("inputHeadroomLowV", input.InputHeadroomLowV),
-            Need("inputOffsetV", input.InputOffsetV),
-            Need("maxOutputCurrentA", input.MaxOutputCurrentA),
-            Need("quiescentCurrentPerSectionA", input.QuiescentCurrentPerSectionA),
-            input.IsComparator ?? false,
-            input.IsOpenDrain ?? false);
-        return errors.Count == before ? spec : null;
+        var partNumber = input.PartNumber!;
+        var part = await db.Parts.AsNoTracking().SingleOrDefaultAsync(p => p.PartNumber == partNumber, ct);
+        if (part is null)
+            errors.Add($"{field}.partNumber", $"There is no part '{partNumber}' in stock.");
+        else if (part.Kind != PartKind.OpAmp)
+            errors.Add($"{field}.partNumber", $"Part '{partNumber}' is a {PartKinds.Name(part.Kind)}, not an op-amp.");
+        else
+            return PartEngineering.ToOpAmpSpec(part);
+        return null;
     }
 
     private static async Task<Dictionary<string, RolePart>?> BindRolesAsync(Dictionary<string, RoleInput>? input,
@@ -257,6 +247,10 @@ internal static class CircuitRequestBinder
         if (input.Distribution is { } d && !Enum.TryParse(d, ignoreCase: true, out distribution))
             errors.Add("analysis.distribution", $"'{d}' is not a distribution; use uniform or normal.");
 
+        var headroomSpread = input.HeadroomSpread ?? 0;
+        if (!double.IsFinite(headroomSpread) || headroomSpread is < 0 or >= 1)
+            errors.Add("analysis.headroomSpread", "A fraction from 0 up to (not including) 1: 0.2 for ±20 %.");
+
         PartsOpt.Analysis.TemperatureRange? temperature = null;
         if (input.Temperature is { } t
             && errors.Finite("analysis.temperature.min", t.Min, required: true)
@@ -299,7 +293,7 @@ internal static class CircuitRequestBinder
 
         return new AnalysisPlan(
             methods.Contains("worstCase"), methods.Contains("rootSumSquare"), methods.Contains("monteCarlo"),
-            samples, input.Seed ?? 1, distribution, temperature, bands, points, setting, curvePoints);
+            samples, input.Seed ?? 1, distribution, headroomSpread, temperature, bands, points, setting, curvePoints);
     }
 }
 
@@ -311,6 +305,7 @@ internal sealed record AnalysisPlan(
     int Samples,
     int Seed,
     SpreadDistribution Distribution,
+    double HeadroomSpread,
     PartsOpt.Analysis.TemperatureRange? Temperature,
     IReadOnlyList<FigureBand> Bands,
     int WaveformPoints,

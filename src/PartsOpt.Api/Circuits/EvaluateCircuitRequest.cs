@@ -46,25 +46,14 @@ public sealed record SupplyInput
     public double? Negative { get; init; }
 }
 
-/// <summary>An op-amp or comparator: a stocked part, or its limits given here (SI units).</summary>
+/// <summary>An op-amp or comparator: a stocked part, or its limits written out.</summary>
 public sealed record OpAmpInput
 {
-    /// <summary>A stocked op-amp; when given, no other field may be.</summary>
+    /// <summary>A stocked op-amp or comparator.</summary>
     public string? PartNumber { get; init; }
-    public int? SectionsPerPackage { get; init; }
-    public double? SupplyMinV { get; init; }
-    public double? SupplyMaxV { get; init; }
-    public double? GainBandwidthHz { get; init; }
-    public double? SlewRateVPerS { get; init; }
-    public double? OutputHeadroomHighV { get; init; }
-    public double? OutputHeadroomLowV { get; init; }
-    public double? InputHeadroomHighV { get; init; }
-    public double? InputHeadroomLowV { get; init; }
-    public double? InputOffsetV { get; init; }
-    public double? MaxOutputCurrentA { get; init; }
-    public double? QuiescentCurrentPerSectionA { get; init; }
-    public bool? IsComparator { get; init; }
-    public bool? IsOpenDrain { get; init; }
+
+    /// <summary>Instead of a part number: the limits, in the same shape as a part's "opAmp" object.</summary>
+    public OpAmpFields? Limits { get; init; }
 }
 
 /// <summary>How the duty is adjusted.</summary>
@@ -126,6 +115,12 @@ public sealed record AnalysisInput
 
     /// <summary>How parts spread inside their tolerance: "uniform" (default) or "normal" (band = ±3σ).</summary>
     public string? Distribution { get; init; }
+
+    /// <summary>
+    /// Spread of the op-amps' output headroom as a fraction (0.2 for ±20 % of the stated headroom), for data
+    /// sheets that give it as typical; default 0 (taken as stated).
+    /// </summary>
+    public double? HeadroomSpread { get; init; }
 
     /// <summary>Temperature range in °C for drift (and for worst case and Monte Carlo when given).</summary>
     public RangeInput? Temperature { get; init; }

@@ -88,7 +88,7 @@ public static partial class PartRules
                 errors.Required("potentiometer.trimmer", p.Trimmer);
                 break;
             case PartKind.OpAmp when input.OpAmp is { } o:
-                ValidateOpAmp(errors, o);
+                ValidateOpAmp(errors, o, "opAmp");
                 break;
             default:
                 var field = KindField(kind);
@@ -98,25 +98,26 @@ public static partial class PartRules
         return errors.ToDictionary();
     }
 
-    private static void ValidateOpAmp(ErrorList errors, OpAmpFields o)
+    /// <summary>An op-amp's limits, with messages under <paramref name="prefix"/> (\"opAmp\" in a part).</summary>
+    internal static void ValidateOpAmp(ErrorList errors, OpAmpFields o, string prefix)
     {
         if (o.Sections is not (1 or 2 or 4))
-            errors.Add("opAmp.sections", "Sections per package is 1, 2 or 4.");
-        errors.Positive("opAmp.supplyMinV", o.SupplyMinV, required: true);
-        errors.Positive("opAmp.supplyMaxV", o.SupplyMaxV, required: true);
+            errors.Add($"{prefix}.sections", "Sections per package is 1, 2 or 4.");
+        errors.Positive($"{prefix}.supplyMinV", o.SupplyMinV, required: true);
+        errors.Positive($"{prefix}.supplyMaxV", o.SupplyMaxV, required: true);
         if (o.SupplyMinV > o.SupplyMaxV)
-            errors.Add("opAmp.supplyMaxV", "The maximum supply is below the minimum.");
-        errors.Positive("opAmp.gainBandwidthHz", o.GainBandwidthHz, required: o.Comparator == false);
-        errors.Positive("opAmp.slewRateVPerS", o.SlewRateVPerS, required: true);
-        errors.NonNegative("opAmp.outputHeadroomLowV", o.OutputHeadroomLowV, required: true);
-        errors.NonNegative("opAmp.outputHeadroomHighV", o.OutputHeadroomHighV, required: true);
-        errors.Finite("opAmp.inputHeadroomLowV", o.InputHeadroomLowV, required: true);
-        errors.Finite("opAmp.inputHeadroomHighV", o.InputHeadroomHighV, required: true);
-        errors.NonNegative("opAmp.inputOffsetV", o.InputOffsetV, required: false);
-        errors.Positive("opAmp.outputCurrentMaxA", o.OutputCurrentMaxA, required: false);
-        errors.NonNegative("opAmp.quiescentCurrentPerSectionA", o.QuiescentCurrentPerSectionA, required: false);
-        errors.Required("opAmp.comparator", o.Comparator);
-        errors.Required("opAmp.openDrain", o.OpenDrain);
+            errors.Add($"{prefix}.supplyMaxV", "The maximum supply is below the minimum.");
+        errors.Positive($"{prefix}.gainBandwidthHz", o.GainBandwidthHz, required: o.Comparator == false);
+        errors.Positive($"{prefix}.slewRateVPerS", o.SlewRateVPerS, required: true);
+        errors.NonNegative($"{prefix}.outputHeadroomLowV", o.OutputHeadroomLowV, required: true);
+        errors.NonNegative($"{prefix}.outputHeadroomHighV", o.OutputHeadroomHighV, required: true);
+        errors.Finite($"{prefix}.inputHeadroomLowV", o.InputHeadroomLowV, required: true);
+        errors.Finite($"{prefix}.inputHeadroomHighV", o.InputHeadroomHighV, required: true);
+        errors.NonNegative($"{prefix}.inputOffsetV", o.InputOffsetV, required: false);
+        errors.Positive($"{prefix}.outputCurrentMaxA", o.OutputCurrentMaxA, required: false);
+        errors.NonNegative($"{prefix}.quiescentCurrentPerSectionA", o.QuiescentCurrentPerSectionA, required: false);
+        errors.Required($"{prefix}.comparator", o.Comparator);
+        errors.Required($"{prefix}.openDrain", o.OpenDrain);
     }
 
     /// <summary>The JSON property holding a kind's fields.</summary>

@@ -11,10 +11,13 @@ internal static class CircuitRequests
     /// </summary>
     public static JsonObject IdealOpAmp() => new()
     {
-        ["sectionsPerPackage"] = 4, ["supplyMinV"] = 3, ["supplyMaxV"] = 44, ["gainBandwidthHz"] = 1e9,
-        ["slewRateVPerS"] = 1e12, ["outputHeadroomHighV"] = 0, ["outputHeadroomLowV"] = 0,
-        ["inputHeadroomHighV"] = -1, ["inputHeadroomLowV"] = -1, ["inputOffsetV"] = 0,
-        ["maxOutputCurrentA"] = 0.05, ["quiescentCurrentPerSectionA"] = 1e-3,
+        ["limits"] = new JsonObject
+        {
+            ["sections"] = 4, ["supplyMinV"] = 3, ["supplyMaxV"] = 44, ["gainBandwidthHz"] = 1e9,
+            ["slewRateVPerS"] = 1e12, ["outputHeadroomHighV"] = 0, ["outputHeadroomLowV"] = 0,
+            ["inputHeadroomHighV"] = -1, ["inputHeadroomLowV"] = -1, ["inputOffsetV"] = 0,
+            ["outputCurrentMaxA"] = 0.05, ["quiescentCurrentPerSectionA"] = 1e-3, ["comparator"] = false, ["openDrain"] = false,
+        },
     };
 
     public static JsonObject Part(object value, double tolerance = 0.01) => new()

@@ -79,6 +79,27 @@ public sealed class EvaluateCircuitTests(StockFactory factory) : IClassFixture<S
     }
 
     [Fact]
+    public async Task A_headroom_spread_widens_the_loop_triangle_by_the_same_fraction()
+    {
+        // Loop triangle peak-to-peak = 2·L·R1/R2 with L the output swing (Sedra & Smith): with every part exact
+        // and the swing 12 − 1.5 V ± 20 % of the 1.5 V headroom, the worst case is 2·(10.5 ∓ 0.3)·10/20.
+        var body = CircuitRequests.Loop();
+        foreach (var role in new[] { "sch.r1", "sch.r2", "int.r", "int.c", "cmp.ra", "cmp.pot", "cmp.rb" })
+            body["roles"]![role]!["tolerance"] = 0.0;
+        body["opAmp"]!["limits"]!["outputHeadroomHighV"] = 1.5;
+        body["opAmp"]!["limits"]!["outputHeadroomLowV"] = 1.5;
+        body["analysis"] = new JsonObject
+        {
+            ["methods"] = new JsonArray("worstCase"), ["headroomSpread"] = 0.2, ["waveformPoints"] = 0,
+        };
+        var answer = await Evaluate(body);
+        var pp = answer.GetProperty("worstCase").GetProperty("figures").EnumerateArray()
+            .Single(f => f.GetProperty("figure").GetString() == "trianglePeakToPeak");
+        Near(2 * 10.2 * 0.5, pp.GetProperty("min").GetDouble(), 1e-6, "min peak-to-peak");
+        Near(2 * 10.8 * 0.5, pp.GetProperty("max").GetDouble(), 1e-6, "max peak-to-peak");
+    }
+
+    [Fact]
     public async Task Loop_textbook_generator()
     {
         var answer = await Evaluate(CircuitRequests.Loop());
@@ -151,8 +172,10 @@ public sealed class EvaluateCircuitTests(StockFactory factory) : IClassFixture<S
         { """{"roles":{"osc.r":{"value":"10k","tolerance":1.5}}}""", "roles.osc.r.tolerance" },
         { """{"roles":{"osc.r":{"partNumber":"NO-SUCH-PART"}}}""", "roles.osc.r.partNumber" },
         { """{"opAmp":{"partNumber":"NO-SUCH-PART"}}""", "opAmp.partNumber" },
-        { """{"opAmp":{"sectionsPerPackage":2}}""", "opAmp.slewRateVPerS" },
+        { """{"opAmp":{"limits":{"sections":2}}}""", "opAmp.limits.slewRateVPerS" },
+        { """{"opAmp":{"partNumber":"X","limits":{"sections":2}}}""", "opAmp" },
         { """{"analysis":{"samples":5}}""", "analysis.samples" },
+        { """{"analysis":{"headroomSpread":1.5}}""", "analysis.headroomSpread" },
         { """{"analysis":{"methods":["guess"]}}""", "analysis.methods" },
         { """{"analysis":{"bands":[{"figure":"colour","min":1}]}}""", "analysis.bands[0].figure" },
         { """{"duty":{"adjust":"knob"}}""", "duty.adjust" },

@@ -26,6 +26,28 @@ public class RedistributedTests
     }
 }
 
+public class WithToleranceTests
+{
+    [Fact]
+    public void A_spread_given_to_a_limit_reaches_the_worst_case()
+    {
+        // y = x·k with k the spread limit: extremes (1 ± 0.03)(1 ± 0.2) at the corners (calculus).
+        var model = new Product().WithTolerance(name => name == "k", 0.2);
+        var worst = WorstCase.Analyse(model);
+        Precision.AlmostEqualRelative(0.97 * 0.8, worst.Figures[0].Min!.Value, 1e-12, "min");
+        Precision.AlmostEqualRelative(1.03 * 1.2, worst.Figures[0].Max!.Value, 1e-12, "max");
+        Assert.Throws<ArgumentOutOfRangeException>(() => new Product().WithTolerance(_ => true, double.NaN));
+    }
+
+    private sealed class Product : IFigureModel
+    {
+        public IReadOnlyList<ParameterSpec> Parameters { get; } =
+            [ParameterSpec.Symmetric("x", 1, 0.03), ParameterSpec.Symmetric("k", 1, 0)];
+        public IReadOnlyList<FigureSpec> Figures { get; } = [new("y", "1")];
+        public void Evaluate(ReadOnlySpan<double> parameters, Span<double> figures) => figures[0] = parameters[0] * parameters[1];
+    }
+}
+
 public class LinearCoefficientTests
 {
     [Fact]
