@@ -80,7 +80,9 @@ public class ClosedFormAgreementTests
     /// the closed forms solve the slewing edges exactly (the capacitor charging towards the moving output,
     /// the integrator driven by the real trapezoid), so they must agree with the simulator within 0.5 %
     /// for frequency, high and low times and peak-to-peak, the centre within 1 % of the peak-to-peak,
-    /// and the duty within 0.005.
+    /// and the duty within 0.005. Measured: frequency and times within 10⁻⁶, peak-to-peak within 2·10⁻⁵,
+    /// centre and duty within 2·10⁻⁵ once the shunt's start-up offset has settled (ten Rf·Ci); the bounds
+    /// below are tighter than that brief (0.1 % for the first four).
     /// </summary>
     [Theory]
     [MemberData(nameof(SlowDesigns))]
@@ -101,17 +103,17 @@ public class ClosedFormAgreementTests
 
         var run = TransientSimulator.Run(DesignSimulation.FromDesign(design, threshold), new SimulationOptions
         {
-            SettlePeriods = DesignSimulation.SettlePeriods(design, evaluation),
+            SettlePeriods = 2 * DesignSimulation.SettlePeriods(design, evaluation),
             MeasurePeriods = 4,
             StepsPerPeriod = 1000,
         });
         Assert.Equal(SimulationOutcome.Measured, run.Outcome);
         var measured = run.Figures!;
         var pp = evaluation.Value(FigureNames.TrianglePeakToPeak);
-        Precision.AlmostEqualRelative(evaluation.Value(FigureNames.Frequency), measured.Frequency, 0.005, "frequency");
-        Precision.AlmostEqualRelative(evaluation.Value(FigureNames.HighTime), measured.HighTime, 0.005, "high time");
-        Precision.AlmostEqualRelative(evaluation.Value(FigureNames.LowTime), measured.LowTime, 0.005, "low time");
-        Precision.AlmostEqualRelative(pp, measured.TrianglePeakToPeak, 0.005, "peak-to-peak");
+        Precision.AlmostEqualRelative(evaluation.Value(FigureNames.Frequency), measured.Frequency, 0.001, "frequency");
+        Precision.AlmostEqualRelative(evaluation.Value(FigureNames.HighTime), measured.HighTime, 0.001, "high time");
+        Precision.AlmostEqualRelative(evaluation.Value(FigureNames.LowTime), measured.LowTime, 0.001, "low time");
+        Precision.AlmostEqualRelative(pp, measured.TrianglePeakToPeak, 0.001, "peak-to-peak");
         Precision.AlmostEqualAbsolute(evaluation.Value(FigureNames.TriangleCentre), measured.TriangleCentre, 0.01 * pp, "centre");
         Precision.AlmostEqualAbsolute(DesignSimulation.ClosedFormDutyAt(evaluation, 0)!.Value, measured.DutyCycle, 0.005, "duty");
     }
@@ -120,7 +122,8 @@ public class ClosedFormAgreementTests
     /// The lead's case (±12 V, 1.5 V headroom, 13 V/µs; 4.7 kΩ, 10 nF, 10 kΩ dividers; 47 kΩ, 10 nF, 1 MΩ):
     /// the edge-adds-(L+ − L−)/SR rule (common practice) was 1.0 % off in frequency and 2.7 % in
     /// peak-to-peak; derived and checked against the time-domain simulator (and MathNet RK4 through it),
-    /// the closed form now agrees within 0.1 %.
+    /// the closed form now agrees within 0.1 % (measured: 9485.558 Hz against 9485.558 Hz, 1.15956 V
+    /// against 1.15949 V peak to peak).
     /// </summary>
     [Fact]
     public void TheLeadsSlowThreeStageCaseAgreesWithinATenthOfAPercent()
