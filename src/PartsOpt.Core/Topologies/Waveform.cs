@@ -13,7 +13,9 @@ namespace PartsOpt.Topologies;
 /// capacitor and the lossy integrator are driven by the real trapezoid, each piece solved exactly
 /// (<see cref="RampPieces.Driven"/>). In the loop, the Schmitt's slewing edges make
 /// the triangle overshoot each threshold by L²/(2·SR·Ri·Ci) and shift its restart by the integral of
-/// the slewing input. The reference is taken as stiff.
+/// the slewing input, and through each edge the triangle is a parabola (<see cref="RampPieces.Integrated"/>).
+/// The integrators are taken as ideal (their own slew and swing limits are checks, not part of the closed
+/// form), and the reference as stiff.
 /// </remarks>
 internal struct Waveform
 {
@@ -32,6 +34,7 @@ internal struct Waveform
     public double DutyMin, DutyMax;
     public double SupplyCurrentA;
     public double SchmittNodeMaxRel, SchmittNodeMinRel;
+    public double CapacitorSwingV;
 
     public readonly double RampMaxV => RampMaxRel + ReferenceV;
     public readonly double RampMinV => RampMinRel + ReferenceV;
@@ -118,8 +121,11 @@ internal struct Waveform
 
         // Lossy integrator, v′ = (−(Rf/Ri)·w(t) − v)/(Rf·Ci), driven by the oscillator's trapezoid; its
         // periodic steady state, with the turning points inside the edges where the input crosses −v·Ri/Rf.
-        var tau = v.IntRf * v.IntC;
         var edge = w.AmpEdgeS;
+        var capacitor = RampPieces.Driven(1, v.OscR * v.OscC, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge,
+            w.HighTimeS - edge, w.Ratio * w.LevelHighRel);
+        w.CapacitorSwingV = capacitor.MaxV - capacitor.MinV;
+        var tau = v.IntRf * v.IntC;
         w.Ramp = RampPieces.Driven(-v.IntRf / v.IntR, tau, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge, w.HighTimeS - edge);
         w.RampMaxRel = w.Ramp.MaxV;
         w.RampMinRel = w.Ramp.MinV;
@@ -143,6 +149,7 @@ internal struct Waveform
             w.HighTimeS - edge, beta * w.LevelHighRel);
         w.RampMaxRel = w.Ramp.MaxV;
         w.RampMinRel = w.Ramp.MinV;
+        w.CapacitorSwingV = w.RampMaxRel - w.RampMinRel;
         w.LinearityErrorPercent = 100 * w.Ramp.LinearityError();
         return true;
     }
@@ -183,7 +190,8 @@ internal struct Waveform
     /// <summary>
     /// Mean current drawn from V+: quiescent current of every fitted section, the threshold and reference
     /// dividers, the pull-up while the output is low (at the middle setting), and the current each op-amp
-    /// output sources into its networks while high (timing capacitor: its charge C·ΔV per period, exactly;
+    /// output sources into its networks while high (timing capacitor: its charge C·ΔV per period, exactly,
+    /// ΔV its whole swing including the overshoot while the output slews;
     /// resistors: at the output level over the time spent there, far end at the node's mean voltage).
     /// </summary>
     private static double SupplyCurrent(in CircuitValues v, CircuitShape shape, in Waveform w)
@@ -205,11 +213,11 @@ internal struct Waveform
         {
             case TopologyKind.ThreeStage:
                 current += (lp / (v.OscR1 + v.OscR2) + lp / v.IntR) * highShare
-                    + v.OscC * w.Ratio * (lp - lm) / w.PeriodS
+                    + v.OscC * w.CapacitorSwingV / w.PeriodS
                     + -lm / v.IntR * lowShare;
                 break;
             case TopologyKind.RcRamp:
-                current += lp / (v.OscR1 + v.OscR2) * highShare + v.OscC * w.Ratio * (lp - lm) / w.PeriodS;
+                current += lp / (v.OscR1 + v.OscR2) * highShare + v.OscC * w.CapacitorSwingV / w.PeriodS;
                 break;
             default:
                 var centre = 0.5 * (w.RampMaxRel + w.RampMinRel);
