@@ -1,16 +1,41 @@
 namespace PartsOpt.Topologies;
 
 /// <summary>
-/// One monotonic piece of a ramp: from <see cref="StartV"/> to <see cref="EndV"/> in <see cref="DurationS"/>,
-/// exponential towards <see cref="TargetV"/> with time constant <see cref="TauS"/>, or a straight line when
-/// <see cref="TauS"/> is infinite. Voltages in any common frame.
+/// One monotonic piece of a ramp, the response of a first-order stage v′ = (target(t) − v)/τ to a target
+/// that moves linearly: v(t) = v0 + (A − v0)·(1 − e^(−t/τ)) + B·τ·(u − 1 + e^(−u)), u = t/τ, with
+/// A = <see cref="TargetV"/> the target at the start and B = <see cref="SlopeVPerS"/> its slope (0 for a
+/// plain exponential). When <see cref="TauS"/> is infinite (an ideal integrator) the piece is a straight
+/// line, or with <see cref="CurvatureVPerS2"/> ≠ 0 a parabola v = v0 + s0·t + c·t²/2 whose start slope s0 is
+/// <see cref="SlopeVPerS"/> (the integrator's response to a slewing edge). Voltages in any common frame.
 /// </summary>
-internal readonly record struct RampSegment(double StartV, double EndV, double DurationS, double TargetV, double TauS)
+internal readonly record struct RampSegment(double StartV, double EndV, double DurationS, double TargetV, double TauS,
+    double SlopeVPerS = 0, double CurvatureVPerS2 = 0)
 {
     public static RampSegment Linear(double startV, double endV, double durationS) =>
         new(startV, endV, durationS, double.NaN, double.PositiveInfinity);
 
+    /// <summary>A parabola from <paramref name="startV"/> with start slope and constant second derivative.</summary>
+    public static RampSegment Parabola(double startV, double durationS, double startSlope, double curvature) =>
+        new(startV, startV + durationS * (startSlope + 0.5 * curvature * durationS), durationS, double.NaN,
+            double.PositiveInfinity, startSlope, curvature);
+
     private bool IsLinear => double.IsPositiveInfinity(TauS);
+
+    private bool IsParabola => IsLinear && CurvatureVPerS2 != 0;
+
+    /// <summary>The value <paramref name="t"/> seconds into the piece (not for straight pieces).</summary>
+    public double ValueAt(double t)
+    {
+        var u = t / TauS;
+        return StartV + (TargetV - StartV) * -Accurate.ExpM1(-u) + SlopeVPerS * TauS * RelaxationTiming.ExcessOverChord(u);
+    }
+
+    /// <summary>dv/dt at <paramref name="t"/> seconds into the piece (not for straight pieces).</summary>
+    public double SlopeAt(double t)
+    {
+        var x = -Accurate.ExpM1(-t / TauS);
+        return (TargetV - StartV) / TauS * (1 - x) + SlopeVPerS * x;
+    }
 
     /// <summary>Time of this segment during which the ramp is above <paramref name="thresholdV"/>.</summary>
     public double TimeAbove(double thresholdV)
@@ -22,12 +47,47 @@ internal readonly record struct RampSegment(double StartV, double EndV, double D
             return 0;
         if (thresholdV <= bottom)
             return DurationS;
-        // Time from the start until the ramp crosses the threshold; log1p keeps long time constants exact.
-        var crossing = IsLinear
-            ? DurationS * (thresholdV - StartV) / (EndV - StartV)
-            : TauS * Accurate.Log1P((StartV - thresholdV) / (thresholdV - TargetV));
-        crossing = Math.Clamp(crossing, 0, DurationS);
+        var crossing = Math.Clamp(Crossing(thresholdV), 0, DurationS);
         return rising ? DurationS - crossing : crossing;
+    }
+
+    /// <summary>
+    /// Time from the start at which the piece passes <paramref name="thresholdV"/> (between its ends): a
+    /// proportion on a straight piece, a logarithm on a plain exponential (log1p keeps long time constants
+    /// exact), and on a piece with a moving target (a slewing edge: exponential plus line, no closed-form
+    /// inverse) Newton's method kept inside a shrinking bracket; the piece is monotonic and has no
+    /// inflection, so a handful of steps reach full precision.
+    /// </summary>
+    private double Crossing(double thresholdV)
+    {
+        if (IsParabola)
+        {
+            // Root of c/2·t² + s0·t − Δ = 0 on the monotonic piece, in the form without cancellation.
+            var delta = thresholdV - StartV;
+            var root = Math.Sqrt(Math.Max(0, SlopeVPerS * SlopeVPerS + 2 * CurvatureVPerS2 * delta));
+            return 2 * delta / (SlopeVPerS + Math.Sign(EndV - StartV) * root);
+        }
+
+        if (IsLinear)
+            return DurationS * (thresholdV - StartV) / (EndV - StartV);
+        if (SlopeVPerS == 0)
+            return TauS * Accurate.Log1P((StartV - thresholdV) / (thresholdV - TargetV));
+        double lo = 0, hi = DurationS;
+        var sign = EndV > StartV ? 1.0 : -1.0;
+        var t = DurationS * (thresholdV - StartV) / (EndV - StartV);
+        for (var i = 0; i < 60; i++)
+        {
+            var f = sign * (ValueAt(t) - thresholdV);
+            if (f > 0) hi = t; else lo = t;
+            var next = t - f / (sign * SlopeAt(t));
+            if (!(next > lo && next < hi))
+                next = 0.5 * (lo + hi);
+            if (Math.Abs(next - t) <= 1e-15 * DurationS || hi - lo <= 1e-15 * DurationS)
+                return next;
+            t = next;
+        }
+
+        return t;
     }
 
     /// <summary>

@@ -8,11 +8,14 @@ namespace PartsOpt.Topologies;
 /// </summary>
 /// <remarks>
 /// Modelling choices: the square-wave generator's outputs saturate at the rails minus the headroom and
-/// slew at the part's slew rate; each edge adds (L+ − L−)/SR to its period (common practice), and the
-/// integrator sees a square whose high and low parts each last their saturated time plus one edge time
-/// (the slewing ramp split evenly between the levels). In the loop, the Schmitt's slewing edges make
+/// slew at the part's slew rate. The relaxation oscillator's times are exact for that model
+/// (<see cref="RelaxationTiming"/>: the capacitor keeps charging towards the slewing output), and the
+/// capacitor and the lossy integrator are driven by the real trapezoid, each piece solved exactly
+/// (<see cref="RampPieces.Driven"/>). In the loop, the Schmitt's slewing edges make
 /// the triangle overshoot each threshold by L²/(2·SR·Ri·Ci) and shift its restart by the integral of
-/// the slewing input. The reference is taken as stiff.
+/// the slewing input, and through each edge the triangle is a parabola (<see cref="RampPieces.Integrated"/>).
+/// The integrators are taken as ideal (their own slew and swing limits are checks, not part of the closed
+/// form), and the reference as stiff.
 /// </remarks>
 internal struct Waveform
 {
@@ -22,8 +25,7 @@ internal struct Waveform
     public double Ratio;
     public double AmpEdgeS;
     public double HighTimeS, LowTimeS, PeriodS;
-    public RampSegment Fall, Rise;
-    public double DwellTopS;
+    public RampPieces Ramp;
     public double RampMaxRel, RampMinRel;
     public double IntegratorSlopeMax;
     public double LinearityErrorPercent;
@@ -32,6 +34,7 @@ internal struct Waveform
     public double DutyMin, DutyMax;
     public double SupplyCurrentA;
     public double SchmittNodeMaxRel, SchmittNodeMinRel;
+    public double CapacitorSwingV;
 
     public readonly double RampMaxV => RampMaxRel + ReferenceV;
     public readonly double RampMinV => RampMinRel + ReferenceV;
@@ -52,8 +55,7 @@ internal struct Waveform
             return 0;
         if (rel <= RampMinRel)
             return 1;
-        var above = Fall.TimeAbove(rel) + Rise.TimeAbove(rel) + DwellTopS;
-        return above / PeriodS;
+        return Ramp.TimeAbove(rel) / PeriodS;
     }
 
     public static void Compute(in CircuitValues v, CircuitShape shape, out Waveform w)
@@ -100,64 +102,55 @@ internal struct Waveform
     }
 
     /// <summary>
-    /// Saturated high and low times of the relaxation oscillator (REFERENCE.md, unequal saturation), as
-    /// RC·ln(1 + g): g_high = β(L+ − L−)/((1−β)L+), g_low = β(L+ − L−)/((1−β)|L−|) are the ratios less one,
-    /// written so that a small β loses no digits. Also returns x = 1 − e^(−t/RC) = g/(1+g) of each.
+    /// High and low times of the slewing relaxation oscillator, mid-edge to mid-edge
+    /// (<see cref="RelaxationTiming.HalfPeriods"/>); false when an edge cannot complete.
     /// </summary>
-    private static (double High, double Low, double XHigh, double XLow) RelaxationTimes(in CircuitValues v, in Waveform w, double beta)
+    private static bool RelaxationTimes(in CircuitValues v, ref Waveform w)
     {
-        double lp = w.LevelHighRel, lm = w.LevelLowRel, rc = v.OscR * v.OscC;
-        var common = beta * (lp - lm) / (1 - beta);
-        double gHigh = common / lp, gLow = common / -lm;
-        return (rc * Accurate.Log1P(gHigh), rc * Accurate.Log1P(gLow), gHigh / (1 + gHigh), gLow / (1 + gLow));
+        var (high, low) = RelaxationTiming.HalfPeriods(v.OscR * v.OscC, w.Ratio, w.LevelHighRel, w.LevelLowRel, v.AmpSlewRate);
+        w.HighTimeS = high;
+        w.LowTimeS = low;
+        w.PeriodS = high + low;
+        return double.IsFinite(w.PeriodS);
     }
 
     private static bool ThreeStage(in CircuitValues v, CircuitShape shape, ref Waveform w)
     {
-        var beta = w.Ratio;
-        if (!RelaxationCanSwitch(in w, beta, shape.AmpOffsetV))
+        if (!RelaxationCanSwitch(in w, w.Ratio, shape.AmpOffsetV) || !RelaxationTimes(in v, ref w))
             return false;
-        var (high, low, _, _) = RelaxationTimes(in v, in w, beta);
-        w.HighTimeS = high + w.AmpEdgeS;
-        w.LowTimeS = low + w.AmpEdgeS;
-        w.PeriodS = w.HighTimeS + w.LowTimeS;
 
-        // Lossy integrator: each part of the square is an exponential towards −(Rf/Ri)·level with τ = Rf·Ci.
-        // Periodic steady state: Vpp = (B − A)·x·y/(x + y − x·y), x = 1 − e^(−a/τ), y = 1 − e^(−b/τ).
+        // Lossy integrator, v′ = (−(Rf/Ri)·w(t) − v)/(Rf·Ci), driven by the oscillator's trapezoid; its
+        // periodic steady state, with the turning points inside the edges where the input crosses −v·Ri/Rf.
+        var edge = w.AmpEdgeS;
+        var capacitor = RampPieces.Driven(1, v.OscR * v.OscC, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge,
+            w.HighTimeS - edge, w.Ratio * w.LevelHighRel);
+        w.CapacitorSwingV = capacitor.MaxV - capacitor.MinV;
         var tau = v.IntRf * v.IntC;
-        var gain = v.IntRf / v.IntR;
-        var towardsLow = -gain * w.LevelHighRel;
-        var towardsHigh = -gain * w.LevelLowRel;
-        var x = -Accurate.ExpM1(-w.HighTimeS / tau);
-        var y = -Accurate.ExpM1(-w.LowTimeS / tau);
-        var den = x + y - x * y;
-        var peakToPeak = (towardsHigh - towardsLow) * x * y / den;
-        w.RampMaxRel = towardsLow + (towardsHigh - towardsLow) * y / den;
-        w.RampMinRel = w.RampMaxRel - peakToPeak;
-        w.Fall = new RampSegment(w.RampMaxRel, w.RampMinRel, w.HighTimeS, towardsLow, tau);
-        w.Rise = new RampSegment(w.RampMinRel, w.RampMaxRel, w.LowTimeS, towardsHigh, tau);
-        w.IntegratorSlopeMax = Math.Max(w.RampMaxRel - towardsLow, towardsHigh - w.RampMinRel) / tau;
-        w.LinearityErrorPercent = 100 * Math.Max(RampSegment.Bow(w.HighTimeS / tau, x), RampSegment.Bow(w.LowTimeS / tau, y));
+        w.Ramp = RampPieces.Driven(-v.IntRf / v.IntR, tau, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge, w.HighTimeS - edge);
+        w.RampMaxRel = w.Ramp.MaxV;
+        w.RampMinRel = w.Ramp.MinV;
+        var slopeMax = 0.0;
+        for (var i = 0; i < w.Ramp.Count; i++)
+            slopeMax = Math.Max(slopeMax, Math.Abs(w.Ramp[i].SlopeAt(0)));
+        w.IntegratorSlopeMax = slopeMax;
+        w.LinearityErrorPercent = 100 * w.Ramp.LinearityError();
         return true;
     }
 
     private static bool RcRamp(in CircuitValues v, CircuitShape shape, ref Waveform w)
     {
         var beta = w.Ratio;
-        if (!RelaxationCanSwitch(in w, beta, shape.AmpOffsetV))
+        if (!RelaxationCanSwitch(in w, beta, shape.AmpOffsetV) || !RelaxationTimes(in v, ref w))
             return false;
-        var (high, low, xHigh, xLow) = RelaxationTimes(in v, in w, beta);
-        w.HighTimeS = high + w.AmpEdgeS;
-        w.LowTimeS = low + w.AmpEdgeS;
-        w.PeriodS = w.HighTimeS + w.LowTimeS;
-        var rc = v.OscR * v.OscC;
-        w.RampMaxRel = beta * w.LevelHighRel;
-        w.RampMinRel = beta * w.LevelLowRel;
-        // The capacitor charges while the output is high and rests near its peak while the output slews down.
-        w.Rise = new RampSegment(w.RampMinRel, w.RampMaxRel, high, w.LevelHighRel, rc);
-        w.Fall = new RampSegment(w.RampMaxRel, w.RampMinRel, low, w.LevelLowRel, rc);
-        w.DwellTopS = w.AmpEdgeS;
-        w.LinearityErrorPercent = 100 * Math.Max(RampSegment.Bow(high / rc, xHigh), RampSegment.Bow(low / rc, xLow));
+        // The capacitor, from the falling trip at βL+: it overshoots while the output slews down, and
+        // undershoots βL− while it slews up.
+        var edge = w.AmpEdgeS;
+        w.Ramp = RampPieces.Driven(1, v.OscR * v.OscC, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge,
+            w.HighTimeS - edge, beta * w.LevelHighRel);
+        w.RampMaxRel = w.Ramp.MaxV;
+        w.RampMinRel = w.Ramp.MinV;
+        w.CapacitorSwingV = w.RampMaxRel - w.RampMinRel;
+        w.LinearityErrorPercent = 100 * w.Ramp.LinearityError();
         return true;
     }
 
@@ -184,8 +177,9 @@ internal struct Waveform
         var slewTimesTau = 2 * v.AmpSlewRate * tauI;
         w.RampMaxRel = -k * lm + lm * lm / slewTimesTau;
         w.RampMinRel = -k * lp - lp * lp / slewTimesTau;
-        w.Fall = RampSegment.Linear(w.RampMaxRel, w.RampMinRel, w.HighTimeS);
-        w.Rise = RampSegment.Linear(w.RampMinRel, w.RampMaxRel, w.LowTimeS);
+        // The triangle as the engine's pieces (parabolic through the edges) for the duty; it starts at the
+        // lower threshold −k·L+ where the Schmitt trips low.
+        w.Ramp = RampPieces.Integrated(tauI, lp, lm, te, w.LowTimeS - te, w.HighTimeS - te, -k * lp);
         w.IntegratorSlopeMax = Math.Max(lp, -lm) / tauI;
         var sum = v.SchR1 + v.SchR2;
         w.SchmittNodeMaxRel = (w.RampMaxRel * v.SchR2 + lp * v.SchR1) / sum;
@@ -196,7 +190,8 @@ internal struct Waveform
     /// <summary>
     /// Mean current drawn from V+: quiescent current of every fitted section, the threshold and reference
     /// dividers, the pull-up while the output is low (at the middle setting), and the current each op-amp
-    /// output sources into its networks while high (timing capacitor: its charge C·ΔV per period, exactly;
+    /// output sources into its networks while high (timing capacitor: its charge C·ΔV per period, exactly,
+    /// ΔV its whole swing including the overshoot while the output slews;
     /// resistors: at the output level over the time spent there, far end at the node's mean voltage).
     /// </summary>
     private static double SupplyCurrent(in CircuitValues v, CircuitShape shape, in Waveform w)
@@ -218,11 +213,11 @@ internal struct Waveform
         {
             case TopologyKind.ThreeStage:
                 current += (lp / (v.OscR1 + v.OscR2) + lp / v.IntR) * highShare
-                    + v.OscC * w.Ratio * (lp - lm) / w.PeriodS
+                    + v.OscC * w.CapacitorSwingV / w.PeriodS
                     + -lm / v.IntR * lowShare;
                 break;
             case TopologyKind.RcRamp:
-                current += lp / (v.OscR1 + v.OscR2) * highShare + v.OscC * w.Ratio * (lp - lm) / w.PeriodS;
+                current += lp / (v.OscR1 + v.OscR2) * highShare + v.OscC * w.CapacitorSwingV / w.PeriodS;
                 break;
             default:
                 var centre = 0.5 * (w.RampMaxRel + w.RampMinRel);

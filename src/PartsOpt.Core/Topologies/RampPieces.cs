@@ -1,0 +1,230 @@
+namespace PartsOpt.Topologies;
+
+/// <summary>
+/// A whole period of a ramp as up to six monotonic pieces in time order, held inline so the figure model
+/// stays allocation-free. Built either from two straight pieces (the loop) or as the periodic response of a
+/// first-order stage to the square-wave generator's trapezoid (<see cref="Driven"/>).
+/// </summary>
+internal struct RampPieces
+{
+    private RampSegment p0, p1, p2, p3, p4, p5;
+    public int Count;
+    public double MaxV, MinV;
+
+    public readonly RampSegment this[int i] => i switch
+    {
+        0 => p0, 1 => p1, 2 => p2, 3 => p3, 4 => p4, _ => p5,
+    };
+
+    public void Add(in RampSegment piece)
+    {
+        if (piece.DurationS <= 0)
+            return;
+        switch (Count++)
+        {
+            case 0: p0 = piece; break;
+            case 1: p1 = piece; break;
+            case 2: p2 = piece; break;
+            case 3: p3 = piece; break;
+            case 4: p4 = piece; break;
+            default: p5 = piece; break;
+        }
+    }
+
+    /// <summary>Time per period above <paramref name="thresholdV"/>.</summary>
+    public readonly double TimeAbove(double thresholdV)
+    {
+        var sum = 0.0;
+        for (var i = 0; i < Count; i++)
+            sum += this[i].TimeAbove(thresholdV);
+        return sum;
+    }
+
+    /// <summary>
+    /// Periodic steady state of v′ = (gain·w(t) − v)/τ for the trapezoid w: from L+ (at the start, the
+    /// falling trip) down at −SR for <paramref name="edgeS"/>, held at L− for <paramref name="lowHeldS"/>,
+    /// up at +SR for <paramref name="edgeS"/>, held at L+ for <paramref name="highHeldS"/>. Each phase has
+    /// the exact solution of <see cref="RampSegment"/>; the start value is <paramref name="startV"/> when
+    /// given, else the periodic one, v0 = c/(1 − e^(−T/τ)) with c the end value of a period started at 0.
+    /// Turning points inside an edge (where v = gain·w(t) + slope·τ·… meets v′ = 0) are at
+    /// e^(−t/τ) = B·τ/(v0 − A + B·τ), in closed form; the phases are split there.
+    /// </summary>
+    public static RampPieces Driven(double gain, double tauS, double levelHigh, double levelLow,
+        double edgeS, double lowHeldS, double highHeldS, double startV = double.NaN)
+    {
+        var slew = edgeS > 0 ? (levelHigh - levelLow) / edgeS : 0;
+        var period = 2 * edgeS + lowHeldS + highHeldS;
+        var v0 = startV;
+        if (double.IsNaN(v0))
+        {
+            var c = 0.0;
+            c = End(c, gain * levelHigh, -gain * slew, edgeS, tauS);
+            c = End(c, gain * levelLow, 0, lowHeldS, tauS);
+            c = End(c, gain * levelLow, gain * slew, edgeS, tauS);
+            c = End(c, gain * levelHigh, 0, highHeldS, tauS);
+            v0 = c / -Accurate.ExpM1(-period / tauS);
+        }
+
+        var pieces = new RampPieces { MaxV = double.NegativeInfinity, MinV = double.PositiveInfinity };
+        var v = v0;
+        v = pieces.Phase(v, gain * levelHigh, -gain * slew, edgeS, tauS);
+        v = pieces.Phase(v, gain * levelLow, 0, lowHeldS, tauS);
+        v = pieces.Phase(v, gain * levelLow, gain * slew, edgeS, tauS);
+        pieces.Phase(v, gain * levelHigh, 0, highHeldS, tauS);
+        return pieces;
+    }
+
+    /// <summary>
+    /// Largest distance between the ramp and the chords through its turning points, as a fraction of the
+    /// peak-to-peak, the larger of the falling and rising runs. On each piece the distance is largest where
+    /// its slope equals the chord's, e^(−t/τ) = (s − B)/((A − v0)/τ − B), in closed form.
+    /// </summary>
+    public readonly double LinearityError()
+    {
+        var swing = MaxV - MinV;
+        if (!(swing > 0))
+            return 0;
+        double fallS = 0, riseS = 0;
+        for (var i = 0; i < Count; i++)
+        {
+            if (this[i].EndV < this[i].StartV) fallS += this[i].DurationS;
+            else riseS += this[i].DurationS;
+        }
+
+        // The falling run starts at the first falling piece after a rising one (cyclically).
+        var first = 0;
+        for (var i = 0; i < Count; i++)
+        {
+            var prev = this[(i + Count - 1) % Count];
+            if (this[i].EndV < this[i].StartV && prev.EndV >= prev.StartV)
+                first = i;
+        }
+
+        double worst = 0, elapsedFall = 0, elapsedRise = 0;
+        for (var k = 0; k < Count; k++)
+        {
+            var piece = this[(first + k) % Count];
+            var falling = piece.EndV < piece.StartV;
+            double chordStart = falling ? MaxV : MinV, runS = falling ? fallS : riseS;
+            var elapsed = falling ? elapsedFall : elapsedRise;
+            var chordSlope = (falling ? -swing : swing) / runS;
+            worst = Math.Max(worst, Math.Abs(Deviation(piece, chordStart, chordSlope, elapsed)));
+            if (falling) elapsedFall += piece.DurationS;
+            else elapsedRise += piece.DurationS;
+        }
+
+        return worst / swing;
+    }
+
+    private static double Deviation(in RampSegment piece, double chordStart, double chordSlope, double elapsedS)
+    {
+        if (double.IsPositiveInfinity(piece.TauS))
+        {
+            // Parabola: slope s0 + c·t meets the chord's at t = (s − s0)/c; a straight piece lies on it.
+            if (piece.CurvatureVPerS2 == 0)
+                return 0;
+            var at = (chordSlope - piece.SlopeVPerS) / piece.CurvatureVPerS2;
+            if (!(at > 0 && at < piece.DurationS))
+                return 0;
+            var value = piece.StartV + at * (piece.SlopeVPerS + 0.5 * piece.CurvatureVPerS2 * at);
+            return value - (chordStart + chordSlope * (elapsedS + at));
+        }
+
+        var startSlope = (piece.TargetV - piece.StartV) / piece.TauS;
+        var ratio = (chordSlope - piece.SlopeVPerS) / (startSlope - piece.SlopeVPerS);
+        if (!(ratio > 0 && ratio <= 1))
+            return 0;
+        var t = -piece.TauS * Math.Log(ratio);
+        if (!(t < piece.DurationS))
+            return 0;
+        return piece.ValueAt(t) - (chordStart + chordSlope * (elapsedS + t));
+    }
+
+    /// <summary>
+    /// The ideal integrator's triangle, v′ = −w(t)/τi, over the same trapezoid, from <paramref name="startV"/>
+    /// at the falling trip: parabolas during the edges (split where w crosses the reference, the turning
+    /// points), straight lines while the input is held.
+    /// </summary>
+    public static RampPieces Integrated(double tauIS, double levelHigh, double levelLow, double edgeS,
+        double lowHeldS, double highHeldS, double startV)
+    {
+        var slew = edgeS > 0 ? (levelHigh - levelLow) / edgeS : 0;
+        var pieces = new RampPieces { MaxV = double.NegativeInfinity, MinV = double.PositiveInfinity };
+        var v = pieces.EdgeParabola(startV, -levelHigh / tauIS, slew / tauIS, levelHigh / slew, edgeS);
+        v = pieces.Straight(v, -levelLow / tauIS, lowHeldS);
+        v = pieces.EdgeParabola(v, -levelLow / tauIS, -slew / tauIS, -levelLow / slew, edgeS);
+        pieces.Straight(v, -levelHigh / tauIS, highHeldS);
+        return pieces;
+    }
+
+    private double EdgeParabola(double v, double startSlope, double curvature, double turnS, double durationS)
+    {
+        if (!(durationS > 0))
+            return v;
+        Extend(v);
+        if (turnS > 0 && turnS < durationS)
+        {
+            var first = RampSegment.Parabola(v, turnS, startSlope, curvature);
+            Add(first);
+            Extend(first.EndV);
+            v = first.EndV;
+            durationS -= turnS;
+            startSlope = 0;
+        }
+
+        var rest = RampSegment.Parabola(v, durationS, startSlope, curvature);
+        Add(rest);
+        Extend(rest.EndV);
+        return rest.EndV;
+    }
+
+    private double Straight(double v, double slope, double durationS)
+    {
+        var end = v + slope * durationS;
+        Add(RampSegment.Linear(v, end, durationS));
+        Extend(v);
+        Extend(end);
+        return end;
+    }
+
+    private static double End(double v, double target, double slope, double durationS, double tauS)
+    {
+        if (durationS <= 0)
+            return v;
+        var u = durationS / tauS;
+        return v + (target - v) * -Accurate.ExpM1(-u) + slope * tauS * RelaxationTiming.ExcessOverChord(u);
+    }
+
+    private double Phase(double v, double target, double slope, double durationS, double tauS)
+    {
+        var end = End(v, target, slope, durationS, tauS);
+        Extend(v);
+        Extend(end);
+        if (durationS <= 0)
+            return v;
+        if (slope != 0)
+        {
+            // v′ = 0 where e^(−t/τ) = B·τ/(v0 − A + B·τ), i.e. t = τ·log1p((v0 − A)/(B·τ)).
+            var turn = tauS * Accurate.Log1P((v - target) / (slope * tauS));
+            if (turn > 0 && turn < durationS)
+            {
+                var first = new RampSegment(v, double.NaN, turn, target, tauS, slope);
+                var peak = first.ValueAt(turn);
+                Extend(peak);
+                Add(first with { EndV = peak });
+                // Restart at the turning point: the target there is A + B·t.
+                Add(new RampSegment(peak, end, durationS - turn, target + slope * turn, tauS, slope));
+                return end;
+            }
+        }
+
+        Add(new RampSegment(v, end, durationS, target, tauS, slope));
+        return end;
+    }
+
+    private void Extend(double v)
+    {
+        MaxV = Math.Max(MaxV, v);
+        MinV = Math.Min(MinV, v);
+    }
+}
