@@ -6,6 +6,7 @@ using PartsOpt.Api.Health;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
 using PartsOpt.Api.Problems;
+using PartsOpt.Api.Webhooks;
 
 var builder = WebApplication.CreateBuilder(args);
 
@@ -27,6 +28,7 @@ builder.Services.ConfigureHttpJsonOptions(options =>
 });
 
 builder.Services.AddPartsOptDatabase();
+builder.Services.AddWebhooks();
 builder.Services.AddSingleton(TimeProvider.System);
 builder.Services.AddEndpointsApiExplorer();
 builder.Services.AddSwaggerGen(options =>
@@ -59,6 +61,7 @@ await app.InitialiseDatabaseAsync();
 app.MapHealth();
 app.MapParts();
 app.MapCircuits();
+app.MapWebhooks();
 
 await app.RunAsync();
 

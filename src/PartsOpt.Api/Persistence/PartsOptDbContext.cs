@@ -1,6 +1,7 @@
 using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.Movements;
 using PartsOpt.Api.Parts;
+using PartsOpt.Api.Webhooks;
 
 namespace PartsOpt.Api.Persistence;
 
@@ -12,6 +13,10 @@ public sealed class PartsOptDbContext(DbContextOptions<PartsOptDbContext> option
 {
     public DbSet<Part> Parts => Set<Part>();
     public DbSet<Movement> Movements => Set<Movement>();
+    public DbSet<OutboxEvent> OutboxEvents => Set<OutboxEvent>();
+    public DbSet<Subscription> Subscriptions => Set<Subscription>();
+    public DbSet<Delivery> Deliveries => Set<Delivery>();
+    public DbSet<DeliveryAttempt> DeliveryAttempts => Set<DeliveryAttempt>();
 
     protected override void OnModelCreating(ModelBuilder modelBuilder) =>
         modelBuilder.ApplyConfigurationsFromAssembly(typeof(PartsOptDbContext).Assembly);
