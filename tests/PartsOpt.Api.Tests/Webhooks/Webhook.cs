@@ -1,6 +1,7 @@
 using System.Net;
 using System.Net.Http.Json;
 using System.Text.Json;
+using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.Webhooks;
 
 namespace PartsOpt.Api.Tests.Webhooks;
@@ -13,7 +14,9 @@ internal static class Webhook
     /// <summary>A service whose worker polls every 20 ms and retries after 10-100 ms.</summary>
     public static StockFactory Factory(string? folder = null, bool ownsFolder = true, int maxFailures = 10)
     {
-        var factory = folder is null ? new StockFactory() : new StockFactory { Folder = folder, OwnsFolder = ownsFolder };
+        var factory = folder is null
+            ? new StockFactory { OwnsFolder = ownsFolder }
+            : new StockFactory { Folder = folder, OwnsFolder = ownsFolder };
         factory.Settings["Webhooks:PollInterval"] = "00:00:00.020";
         factory.Settings["Webhooks:RetryBase"] = "00:00:00.010";
         factory.Settings["Webhooks:RetryCap"] = "00:00:00.100";
@@ -49,6 +52,11 @@ internal static class Webhook
     }
 
     /// <summary>Waits for the worker (polling, 20 s at most) and fails with <paramref name="what"/> if it never comes.</summary>
+    /// <summary>The outbox's event ids in write order, as receivers see them.</summary>
+    public static async Task<List<string>> WrittenEventIds(this StockFactory factory) =>
+        (await factory.WithDbAsync(db => db.OutboxEvents.OrderBy(e => e.Id).Select(e => e.EventId).ToListAsync()))
+        .ConvertAll(id => id.ToString());
+
     public static async Task Eventually(Func<Task<bool>> condition, string what)
     {
         var until = DateTime.UtcNow.AddSeconds(20);
