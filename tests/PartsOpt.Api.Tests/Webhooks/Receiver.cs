@@ -40,6 +40,9 @@ internal sealed class Receiver : IAsyncDisposable
     /// <summary>Every request: event id and whether its signature verified.</summary>
     public ConcurrentQueue<(string EventId, bool Verified)> Requests { get; } = new();
 
+    /// <summary>Every request as it came: the timestamp and signature headers and the raw body.</summary>
+    public ConcurrentQueue<(string Timestamp, string Signature, byte[] Body)> Raw { get; } = new();
+
     public int RequestCount => Volatile.Read(ref _requests);
 
     public static int FreePort()
@@ -73,6 +76,7 @@ internal sealed class Receiver : IAsyncDisposable
         var verified = Verify(Secret, request.Headers["PartsOpt-Timestamp"].ToString(),
             request.Headers["PartsOpt-Signature"].ToString(), body, DateTimeOffset.UtcNow);
         Requests.Enqueue((eventId, verified));
+        Raw.Enqueue((request.Headers["PartsOpt-Timestamp"].ToString(), request.Headers["PartsOpt-Signature"].ToString(), body));
         if (!verified)
             return Results.StatusCode(StatusCodes.Status401Unauthorized);
 
