@@ -15,7 +15,7 @@ namespace PartsOpt.Api.Webhooks;
 /// </summary>
 internal sealed partial class DeliveryWorker(
     IServiceScopeFactory scopes, IHttpClientFactory http, IOptionsMonitor<WebhookOptions> options,
-    TimeProvider clock, ILogger<DeliveryWorker> logger) : BackgroundService
+    OutboxSignal signal, TimeProvider clock, ILogger<DeliveryWorker> logger) : BackgroundService
 {
     public const string ClientName = "webhooks";
 
@@ -37,8 +37,14 @@ internal sealed partial class DeliveryWorker(
                 // The database was busy or a row vanished under us (a subscription deleted): next pass.
                 LogPassFailed(e);
             }
-            await Task.Delay(options.CurrentValue.PollInterval, clock, stoppingToken).ContinueWith(_ => { },
-                CancellationToken.None, TaskContinuationOptions.ExecuteSynchronously, TaskScheduler.Default);
+            try
+            {
+                await signal.WaitAsync(options.CurrentValue.PollInterval, stoppingToken);
+            }
+            catch (OperationCanceledException)
+            {
+                return;
+            }
         }
     }
 

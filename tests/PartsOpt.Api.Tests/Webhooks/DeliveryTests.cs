@@ -140,6 +140,18 @@ public sealed class DeliveryTests
     }
 
     [Fact]
+    public async Task A_commit_wakes_the_worker_without_waiting_for_the_poll()
+    {
+        await using var receiver = await Receiver.StartAsync();
+        using var factory = Webhook.Factory();
+        factory.Settings["Webhooks:PollInterval"] = "01:00:00"; // the poll alone would not come within the test
+        var client = factory.CreateClient();
+        receiver.Secret = (await client.Subscribe(receiver.Url, "stock.imported")).Secret;
+        await client.Import("R-WAKE-1,resistor,1k,F,5,0");
+        await Webhook.Eventually(() => !receiver.Accepted.IsEmpty, "the event, woken by the import's commit");
+    }
+
+    [Fact]
     public async Task An_unreachable_receiver_is_recorded_as_an_error_without_a_status()
     {
         using var factory = Webhook.Factory();
