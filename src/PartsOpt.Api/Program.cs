@@ -7,6 +7,7 @@ using PartsOpt.Api.Health;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
 using PartsOpt.Api.Problems;
+using PartsOpt.Api.Webhooks;
 
 var builder = WebApplication.CreateBuilder(args);
 
@@ -28,6 +29,7 @@ builder.Services.ConfigureHttpJsonOptions(options =>
 });
 
 builder.Services.AddPartsOptDatabase();
+builder.Services.AddWebhooks();
 builder.Services.AddSingleton(TimeProvider.System);
 builder.Services.AddEndpointsApiExplorer();
 builder.Services.AddSwaggerGen(options =>
@@ -61,6 +63,7 @@ app.MapHealth();
 app.MapParts();
 app.MapCircuits();
 app.MapDesignSearches();
+app.MapWebhooks();
 
 await app.RunAsync();
 

@@ -6,6 +6,7 @@ using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.Common;
 using PartsOpt.Api.Movements;
 using PartsOpt.Api.Persistence;
+using PartsOpt.Api.Webhooks;
 using PartsOpt.Api.Problems;
 using PartsOpt.Search;
 using PartsOpt.Topologies;
@@ -104,8 +105,22 @@ public static class DesignSearchesEndpoints
             }));
             saved.Designs.Add(design);
         }
-        db.DesignSearches.Add(saved);
-        await db.SaveChangesAsync(ct); // the search, its designs and their needs: one SaveChanges, one transaction
+        // The search, its designs, their needs and the event that reports them: one transaction. The event
+        // names the search, whose id exists only once the first SaveChanges has run.
+        await using (var transaction = await db.Database.BeginTransactionAsync(ct))
+        {
+            db.DesignSearches.Add(saved);
+            await db.SaveChangesAsync(ct);
+            EventOutbox.Add(db, EventTypes.DesignSearchCompleted, new
+            {
+                searchId = saved.Id,
+                status = saved.Status,
+                designs = saved.Designs.Select(d => new { id = d.Id, d.Rank, d.Topology, d.CostPerBoard }).ToList(),
+                actor = saved.Actor,
+            }, saved.CreatedAtUtc);
+            await db.SaveChangesAsync(ct);
+            await transaction.CommitAsync(ct);
+        }
 
         var shortages = await DesignStaleness.ShortagesAsync(db, saved.Designs.ConvertAll(d => d.Id), ct);
         return TypedResults.Created(PathOf(saved.Id), ToDto(saved, shortages));

@@ -3,6 +3,7 @@ using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
 using PartsOpt.Api.Problems;
+using PartsOpt.Api.Webhooks;
 
 namespace PartsOpt.Api.Movements;
 
@@ -78,8 +79,12 @@ public static class MovementsEndpoints
             return TypedResults.Problem(statusCode: StatusCodes.Status409Conflict,
                 title: "Not enough stock for this adjustment.", detail: problem);
 
-        var movement = StockLedger.Book(db, part, kind, input.Quantity.Value, input.Reason!.Trim(), Actor.Of(http),
-            clock.GetUtcNow().UtcDateTime);
+        var actor = Actor.Of(http);
+        var atUtc = clock.GetUtcNow().UtcDateTime;
+        var movement = StockLedger.Book(db, part, kind, input.Quantity.Value, input.Reason!.Trim(), actor, atUtc);
+        var after = figures with { OnHand = figures.OnHand + input.Quantity.Value };
+        if (StockEvents.CrossesBelow(figures.Available, part.ReorderLevel, after.Available, part.ReorderLevel))
+            StockEvents.Low(db, part, after, actor, "movement", atUtc); // committed with the movement or not at all
         await db.SaveChangesAsync(ct);
         await transaction.CommitAsync(ct);
         return TypedResults.Created($"{PartMapping.PathOf(part.PartNumber)}/movements/{movement.Id}",

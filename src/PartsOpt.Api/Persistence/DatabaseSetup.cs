@@ -1,5 +1,6 @@
 using Microsoft.Data.Sqlite;
 using Microsoft.EntityFrameworkCore;
+using Microsoft.EntityFrameworkCore.Diagnostics;
 
 namespace PartsOpt.Api.Persistence;
 
@@ -7,7 +8,8 @@ namespace PartsOpt.Api.Persistence;
 /// Where the database lives and how it comes up. Setting <c>Storage:DatabasePath</c> (default
 /// <c>data/partsopt.db</c>, relative to the working directory; its folder is created). At start-up the
 /// migrations are applied (never EnsureCreated), so an upgrade keeps the data, then the demo stock is loaded
-/// into an empty database when <c>Seed:Enabled</c> is true.
+/// into an empty database when <c>Seed:Enabled</c> is true. Features add EF interceptors by registering
+/// them as <see cref="IInterceptor"/> services (webhooks: a commit wakes the delivery worker).
 /// </summary>
 public static class DatabaseSetup
 {
@@ -17,8 +19,9 @@ public static class DatabaseSetup
     public static IServiceCollection AddPartsOptDatabase(this IServiceCollection services)
     {
         // Read at resolution time, so settings a test host adds late still count.
-        services.AddDbContext<PartsOptDbContext>((provider, options) =>
-            options.UseSqlite(ConnectionString(provider.GetRequiredService<IConfiguration>())));
+        services.AddDbContext<PartsOptDbContext>((provider, options) => options
+            .UseSqlite(ConnectionString(provider.GetRequiredService<IConfiguration>()))
+            .AddInterceptors(provider.GetServices<IInterceptor>()));
         return services;
     }
 

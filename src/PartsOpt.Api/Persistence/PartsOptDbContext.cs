@@ -2,6 +2,7 @@ using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.DesignSearches;
 using PartsOpt.Api.Movements;
 using PartsOpt.Api.Parts;
+using PartsOpt.Api.Webhooks;
 
 namespace PartsOpt.Api.Persistence;
 
@@ -16,6 +17,10 @@ public sealed class PartsOptDbContext(DbContextOptions<PartsOptDbContext> option
     public DbSet<SavedSearch> DesignSearches => Set<SavedSearch>();
     public DbSet<SavedDesign> Designs => Set<SavedDesign>();
     public DbSet<DesignNeed> DesignNeeds => Set<DesignNeed>();
+    public DbSet<OutboxEvent> OutboxEvents => Set<OutboxEvent>();
+    public DbSet<Subscription> Subscriptions => Set<Subscription>();
+    public DbSet<Delivery> Deliveries => Set<Delivery>();
+    public DbSet<DeliveryAttempt> DeliveryAttempts => Set<DeliveryAttempt>();
 
     protected override void OnModelCreating(ModelBuilder modelBuilder) =>
         modelBuilder.ApplyConfigurationsFromAssembly(typeof(PartsOptDbContext).Assembly);

@@ -1,3 +1,4 @@
+using Microsoft.EntityFrameworkCore;
 using System.Globalization;
 using System.Net;
 using System.Net.Http.Json;
@@ -90,6 +91,17 @@ public sealed class DesignSearchTests(SearchedStockFactory factory)
             var bomParts = design.Result.Bom.Select(b => b.PartNumber).ToHashSet();
             Assert.All(roles, r => Assert.Contains(r.PartNumbers[0], bomParts));
         }
+    }
+
+    [Fact]
+    public async Task The_completed_search_leaves_its_event_in_the_outbox()
+    {
+        var id = JsonNode.Parse(factory.Body)!["id"]!.GetValue<int>();
+        var events = await factory.WithDbAsync(db => db.OutboxEvents.AsNoTracking()
+            .Where(e => e.Type == PartsOpt.Api.Webhooks.EventTypes.DesignSearchCompleted).ToListAsync());
+        var payload = JsonNode.Parse(Assert.Single(events).Payload)!;
+        Assert.Equal(id, payload["searchId"]!.GetValue<int>());
+        Assert.Equal(JsonNode.Parse(factory.Body)!["designs"]!.AsArray().Count, payload["designs"]!.AsArray().Count);
     }
 
     [Fact]

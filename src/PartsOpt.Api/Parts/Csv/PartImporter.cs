@@ -1,6 +1,7 @@
 using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.Movements;
 using PartsOpt.Api.Persistence;
+using PartsOpt.Api.Webhooks;
 
 namespace PartsOpt.Api.Parts.Csv;
 
@@ -33,6 +34,7 @@ public static class PartImporter
         var updated = new List<string>();
         var unchanged = 0;
         var movements = 0;
+        var nowLow = new List<(Part Part, StockFigures After)>();
         foreach (var row in read.Rows)
         {
             var number = row.Input.PartNumber!;
@@ -47,28 +49,37 @@ public static class PartImporter
                     StockLedger.Book(db, part, MovementKind.Receipt, row.Quantity.Value, Reason, actor, atUtc);
                     movements++;
                 }
+                // A part that arrives below its level is a part to reorder: it counts as crossing.
+                var arrived = new StockFigures(row.Quantity ?? 0, 0);
+                if (arrived.Available < part.ReorderLevel)
+                    nowLow.Add((part, arrived));
                 continue;
             }
 
+            var levelBefore = part.ReorderLevel;
+            var before = await StockLedger.FiguresAsync(db, part.Id, ct);
+            var afterFigures = before;
             row.Input.ApplyTo(part);
             db.ChangeTracker.DetectChanges();
             var changed = db.Entry(part).State == EntityState.Modified;
             if (row.Quantity is { } quantity)
             {
-                var figures = await StockLedger.FiguresAsync(db, part.Id, ct);
-                var difference = quantity - figures.OnHand;
+                var difference = quantity - before.OnHand;
                 if (difference != 0)
                 {
-                    if (StockLedger.AdjustmentProblem(figures, difference) is { } problem)
+                    if (StockLedger.AdjustmentProblem(before, difference) is { } problem)
                     {
                         errors.Add(new(row.Line, PartCsvColumns.Quantity, quantity.ToString(System.Globalization.CultureInfo.InvariantCulture), problem));
                         continue;
                     }
                     StockLedger.Book(db, part, MovementKind.Adjustment, difference, Reason, actor, atUtc);
+                    afterFigures = before with { OnHand = quantity };
                     movements++;
                     changed = true;
                 }
             }
+            if (StockEvents.CrossesBelow(before.Available, levelBefore, afterFigures.Available, part.ReorderLevel))
+                nowLow.Add((part, afterFigures));
             if (changed)
                 updated.Add(part.PartNumber);
             else
@@ -77,12 +88,17 @@ public static class PartImporter
 
         if (errors.Count > 0)
             return new ImportOutcome(null, errors.OrderBy(e => e.Line).ToList()); // disposing rolls back
+        var report = new ImportReport(dryRun, created, updated, unchanged, movements);
         if (!dryRun)
         {
+            // The events commit in the import's own transaction: a rejected file or a dry run publishes nothing.
+            foreach (var (part, after) in nowLow)
+                StockEvents.Low(db, part, after, actor, "import", atUtc);
+            StockEvents.Imported(db, report, actor, atUtc);
             await db.SaveChangesAsync(ct);
             await transaction.CommitAsync(ct);
         }
         db.ChangeTracker.Clear();
-        return new ImportOutcome(new ImportReport(dryRun, created, updated, unchanged, movements), []);
+        return new ImportOutcome(report, []);
     }
 }

@@ -327,6 +327,159 @@ namespace PartsOpt.Api.Persistence.Migrations
                         });
                 });
 
+            modelBuilder.Entity("PartsOpt.Api.Webhooks.Delivery", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("Attempts")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTime?>("DeliveredAtUtc")
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTime>("NextAttemptAtUtc")
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("OutboxEventId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<long>("SubscriptionId")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("OutboxEventId");
+
+                    b.HasIndex("SubscriptionId", "OutboxEventId")
+                        .IsUnique();
+
+                    b.HasIndex("DeliveredAtUtc", "SubscriptionId", "OutboxEventId");
+
+                    b.ToTable("WebhookDeliveries", (string)null);
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.Webhooks.DeliveryAttempt", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTime>("AtUtc")
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("DeliveryId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<double>("DurationMs")
+                        .HasColumnType("REAL");
+
+                    b.Property<string>("Error")
+                        .HasMaxLength(500)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTime?>("NextRetryAtUtc")
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("Number")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int?>("StatusCode")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<bool>("Succeeded")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("DeliveryId", "Number");
+
+                    b.ToTable("WebhookAttempts", (string)null);
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.Webhooks.OutboxEvent", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<Guid>("EventId")
+                        .HasColumnType("TEXT");
+
+                    b.Property<bool>("FannedOut")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTime>("OccurredAtUtc")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Payload")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Type")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("EventId")
+                        .IsUnique();
+
+                    b.HasIndex("FannedOut", "Id");
+
+                    b.ToTable("WebhookEvents", (string)null);
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.Webhooks.Subscription", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("ConsecutiveFailures")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<DateTime>("CreatedAtUtc")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("CreatedBy")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Description")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTime?>("DisabledAtUtc")
+                        .HasColumnType("TEXT");
+
+                    b.Property<bool>("Enabled")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Events")
+                        .IsRequired()
+                        .HasMaxLength(500)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Secret")
+                        .IsRequired()
+                        .HasMaxLength(128)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Url")
+                        .IsRequired()
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.ToTable("WebhookSubscriptions", (string)null);
+                });
+
             modelBuilder.Entity("PartsOpt.Api.DesignSearches.DesignNeed", b =>
                 {
                     b.HasOne("PartsOpt.Api.DesignSearches.SavedDesign", null)
@@ -358,6 +511,36 @@ namespace PartsOpt.Api.Persistence.Migrations
                     b.Navigation("Part");
                 });
 
+            modelBuilder.Entity("PartsOpt.Api.Webhooks.Delivery", b =>
+                {
+                    b.HasOne("PartsOpt.Api.Webhooks.OutboxEvent", "Event")
+                        .WithMany()
+                        .HasForeignKey("OutboxEventId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+
+                    b.HasOne("PartsOpt.Api.Webhooks.Subscription", "Subscription")
+                        .WithMany("Deliveries")
+                        .HasForeignKey("SubscriptionId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+
+                    b.Navigation("Event");
+
+                    b.Navigation("Subscription");
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.Webhooks.DeliveryAttempt", b =>
+                {
+                    b.HasOne("PartsOpt.Api.Webhooks.Delivery", "Delivery")
+                        .WithMany("AttemptLog")
+                        .HasForeignKey("DeliveryId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+
+                    b.Navigation("Delivery");
+                });
+
             modelBuilder.Entity("PartsOpt.Api.DesignSearches.SavedDesign", b =>
                 {
                     b.Navigation("Needs");
@@ -371,6 +554,16 @@ namespace PartsOpt.Api.Persistence.Migrations
             modelBuilder.Entity("PartsOpt.Api.Parts.Part", b =>
                 {
                     b.Navigation("Movements");
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.Webhooks.Delivery", b =>
+                {
+                    b.Navigation("AttemptLog");
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.Webhooks.Subscription", b =>
+                {
+                    b.Navigation("Deliveries");
                 });
 #pragma warning restore 612, 618
         }
