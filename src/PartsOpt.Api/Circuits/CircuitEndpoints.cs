@@ -105,9 +105,10 @@ public static class CircuitEndpoints
         {
             SettlePeriods = settle,
             MeasurePeriods = 4,
-            // Long settling (a large shunt time constant) gets fewer points per period: the solution between
-            // events is exact, the step only sets how finely the waveform is sampled.
-            StepsPerPeriod = settle > 200 ? 100 : 500,
+            // The solution between events is exact; the step sets how finely the waveform is sampled, and the
+            // measured peaks are read from those samples. Long settling (a large shunt time constant) gets fewer
+            // steps per period so a run stays near 600,000 steps.
+            StepsPerPeriod = Math.Clamp(600_000 / (settle + 4), 100, 500),
             OutputPoints = plan.WaveformPoints,
         };
         var run = TransientSimulator.Run(DesignSimulation.FromDesign(design, threshold), options);

@@ -56,7 +56,7 @@ public sealed record SensitivityAnswer(SensitivityResult Numerical, IReadOnlyDic
 /// <param name="Reason">Why it did not measure, where it did not.</param>
 /// <param name="Setting">The setting simulated (0…1).</param>
 /// <param name="ThresholdV">The comparator threshold at that setting.</param>
-/// <param name="SettlePeriods">Periods run before measuring: five of the slowest time constant.</param>
+/// <param name="SettlePeriods">Periods run before measuring: ten of the slowest time constant.</param>
 /// <param name="Measured">Figures measured on the waveforms after settling.</param>
 /// <param name="Agreement">Closed form against simulation, figure by figure.</param>
 /// <param name="Waveforms">Every stage output, reduced to the requested number of points.</param>

@@ -103,7 +103,7 @@ public class ClosedFormAgreementTests
 
         var run = TransientSimulator.Run(DesignSimulation.FromDesign(design, threshold), new SimulationOptions
         {
-            SettlePeriods = 2 * DesignSimulation.SettlePeriods(design, evaluation),
+            SettlePeriods = DesignSimulation.SettlePeriods(design, evaluation),
             MeasurePeriods = 4,
             StepsPerPeriod = 1000,
         });
