@@ -43,46 +43,52 @@ public static class DesignSearch
         var solves = 0;
         var complete = plans.ToDictionary(p => p.Topology, _ => true);
 
-        // First pass: each variant gets an even share of the time left. Second pass: variants that ran out
-        // start again with the time the quick ones left over.
-        var pending = plans.SelectMany(p => p.Variants).ToList();
-        var unfinished = new List<SearchVariant>();
+        // Phase 1: the best design (and its ties) of every variant, each with an even share of the time left.
+        // Phase 2: the full list, cheapest variants first, so the K-th design found early bounds the others.
+        var variants = plans.SelectMany(p => p.Variants).ToList();
         var best = new Dictionary<TopologyKind, long>();
-        for (var pass = 0; pass < 2 && pending.Count > 0; pass++)
+        var finished = new Dictionary<SearchVariant, bool>();
+        var firstCost = new Dictionary<SearchVariant, long>();
+        var solvers = new Dictionary<SearchVariant, (SelectionSolver Solver, List<AcceptedChoice> Accepted)>();
+        bool RunVariant(SearchVariant variant, int wanted, int left)
         {
-            unfinished.Clear();
-            for (var i = 0; i < pending.Count; i++)
+            var remaining = deadline - DateTime.UtcNow;
+            if (cancellation.IsCancellationRequested || remaining <= TimeSpan.Zero)
+                return false;
+            // Phase 2 continues phase 1's model: its cuts stay, the designs already accepted are forbidden in it.
+            if (!solvers.TryGetValue(variant, out var state))
+                solvers[variant] = state = (new SelectionSolver(variant.Problem), []);
+            var run = state.Solver.Run(
+                choice => Verify(variant, choice, yieldCheck, tracker),
+                Math.Max(wanted - state.Accepted.Count, 1),
+                Cutoff(found, requirement.MaxResults, best.TryGetValue(variant.Topology, out var b) ? b : null),
+                variant.RoleSlots,
+                DateTime.UtcNow + remaining / Math.Max(left, 1),
+                options.Seed,
+                cancellation);
+            solves += run.Solves;
+            state.Accepted.AddRange(run.Accepted);
+            found.RemoveAll(f => f.Variant == variant);
+            found.AddRange(state.Accepted.Select(a => (variant, a)));
+            if (state.Accepted.Count > 0)
             {
-                var variant = pending[i];
-                var remaining = deadline - DateTime.UtcNow;
-                if (cancellation.IsCancellationRequested || remaining <= TimeSpan.Zero)
-                {
-                    unfinished.Add(variant);
-                    continue;
-                }
-
-                var solver = new SelectionSolver(variant.Problem);
-                variant.SweptScopes.Clear();
-                var run = solver.Run(
-                    choice => Verify(variant, choice, yieldCheck, tracker),
-                    requirement.MaxResults,
-                    Cutoff(found, requirement.MaxResults, best.TryGetValue(variant.Topology, out var b) ? b : null),
-                    variant.RoleSlots,
-                    DateTime.UtcNow + remaining / (pending.Count - i),
-                    options.Seed,
-                    cancellation);
-                solves += run.Solves;
-                if (!run.Complete)
-                    unfinished.Add(variant);
-                found.RemoveAll(f => f.Variant == variant);
-                found.AddRange(run.Accepted.Select(a => (variant, a)));
-                if (run.Accepted.Count > 0)
-                    best[variant.Topology] = Math.Min(best.GetValueOrDefault(variant.Topology, long.MaxValue), run.Accepted[0].Objective);
+                var cheapest = state.Accepted.Min(a => a.Objective);
+                best[variant.Topology] = Math.Min(best.GetValueOrDefault(variant.Topology, long.MaxValue), cheapest);
+                firstCost[variant] = cheapest;
             }
-            pending = [.. unfinished];
+            return run.Complete;
         }
-        foreach (var variant in unfinished)
-            complete[variant.Topology] = false;
+
+        for (var i = 0; i < variants.Count; i++)
+            finished[variants[i]] = RunVariant(variants[i], 1, variants.Count - i);
+        var second = variants.Where(firstCost.ContainsKey).OrderBy(v => firstCost[v]).ToList();
+        if (requirement.MaxResults > 1)
+            for (var i = 0; i < second.Count; i++)
+                if (solvers[second[i]].Accepted.Count < requirement.MaxResults)
+                    finished[second[i]] = RunVariant(second[i], requirement.MaxResults, second.Count - i);
+        foreach (var (variant, done) in finished)
+            if (!done)
+                complete[variant.Topology] = false;
 
         var designs = DesignAssembler.Rank(found, requirement.MaxResults);
         var reports = plans.Select(p => InfeasibilityReport.For(p, designs, complete[p.Topology], tracker, context, deadline)).ToList();
@@ -113,7 +119,7 @@ public static class DesignSearch
         return Math.Max(kth, topologyBest.Value);
     }
 
-    private static SelectionVerdict Verify(SearchVariant variant, int[] choice, IYieldCheck? yieldCheck, MissTracker tracker)
+    internal static SelectionVerdict Verify(SearchVariant variant, int[] choice, IYieldCheck? yieldCheck, MissTracker tracker)
     {
         var requirement = variant.Context.Requirement;
         var design = variant.DesignOf(choice);

@@ -8,7 +8,7 @@ namespace PartsOpt.Tests.Search;
 /// <summary>Roles filled by two stocked parts in series or parallel when combinations are allowed.</summary>
 public class CombinationTests
 {
-    private static readonly SearchOptions Generous = new(TimeSpan.FromSeconds(120));
+    private static readonly SearchOptions Generous = new(TimeSpan.FromSeconds(600));
 
     /// <summary>
     /// rc-ramp at 20 kHz ±10 %: 10 kΩ and 1 nF give about 40 kHz (β = ½: 2·R·C·ln 3, Sedra &amp; Smith,

@@ -13,7 +13,7 @@ namespace PartsOpt.Tests.Search;
 /// </summary>
 public class DesignSearchTests
 {
-    private static readonly SearchOptions Generous = new(TimeSpan.FromSeconds(120));
+    private static readonly SearchOptions Generous = new(TimeSpan.FromSeconds(600));
 
     [Fact]
     public void TheTwentyKilohertzQuestionIsAnsweredCheapestFirstWithEveryTopologysBest()

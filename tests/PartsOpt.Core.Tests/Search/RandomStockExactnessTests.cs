@@ -32,7 +32,7 @@ public class RandomStockExactnessTests
     {
         var (requirement, stock) = Case(seed);
         var reference = ExhaustiveReference.Cheapest(requirement, stock);
-        var outcome = DesignSearch.Run(requirement, stock, new SearchOptions(TimeSpan.FromSeconds(60), Seed: seed));
+        var outcome = DesignSearch.Run(requirement, stock, new SearchOptions(TimeSpan.FromSeconds(600), Seed: seed));
 
         if (reference is null)
         {

@@ -7,7 +7,7 @@ namespace PartsOpt.Tests.Search;
 /// <summary>The yield post-check: designs that meet the bands nominally but not across their tolerances are cut.</summary>
 public class YieldTests
 {
-    private static readonly SearchOptions Generous = new(TimeSpan.FromSeconds(120));
+    private static readonly SearchOptions Generous = new(TimeSpan.FromSeconds(600));
 
     private static SearchRequirement RcRampWithYield(YieldRequirement? yield) =>
         PwmAt20Kilohertz(TopologyKind.RcRamp) with { Duty = new DutyRequirement(0.20, 0.80), Yield = yield, MaxResults = 3 };
