@@ -8,8 +8,8 @@ namespace PartsOpt.Search;
 /// model stays a relaxation: the exact engine has the last word on every design.
 /// </summary>
 /// <remarks>
-/// Relaxation oscillator: T = R·C·k(β, L+, L−) + 2·te, te = (L+ − L−)/SR one slewing edge, k from the
-/// unequal-saturation times; k depends on the divider pair (and with a single supply on the reference
+/// Relaxation oscillator: R·C·k(β, L+, L−) + a·2·te ≤ T ≤ R·C·k + b·2·te, te = (L+ − L−)/SR one slewing
+/// edge, k from the unequal-saturation times, a and b the edge multipliers of the exact slewing solution; k depends on the divider pair (and with a single supply on the reference
 /// pair too), so it enters through a tuple group. Loop: T = (r1/r2)·Ri·Ci·g + c with g = (L+ − L−)(1/L+ −
 /// 1/L−) and c the slewing edges and their shift of the ramp: separable in the logs, except that L± move
 /// with a single supply's reference, which then enters through a group over the reference pair.
@@ -18,6 +18,13 @@ internal static class FrequencyRelaxation
 {
     /// <summary>Widening of every bound, in natural-log units (1 %): covers rounding and small model drift.</summary>
     public const double Margin = 0.01;
+
+    /// <summary>
+    /// Each slewing edge lengthens the relaxation oscillator's half period by at least half an edge time
+    /// (proved in <see cref="RelaxationTiming.EdgeMultipliers"/>); the tighter (3 − β)/4 is checked only
+    /// numerically, so the relaxation does not rely on it.
+    /// </summary>
+    public const double ProvedLowerEdgeMultiplier = 0.5;
 
     /// <summary>Largest tuple group built; past it the bound is left out (sound, only slower).</summary>
     public const int MaxTuples = 40_000;
@@ -53,17 +60,26 @@ internal static class FrequencyRelaxation
             {
                 var tuples = new List<int[]>();
                 var logs = new List<double>();
+                // The slewing edges add between a·2·te and b·2·te to R·C·k (RelaxationTiming.EdgeMultipliers).
+                // The largest b of any tuple bounds R·C·k from below; from above, a = 1/2, the proved lower
+                // multiplier, keeps the bound a relaxation whatever the tuple.
+                var upperMultiplier = 1.0;
                 foreach (var d in dividerTuples)
                     foreach (var r in referenceTuples)
                     {
                         var beta = Value(r2, d[1]) / (Value(r1, d[0]) + Value(r2, d[1]));
+                        var reference = ReferenceOf(r);
                         tuples.Add([.. d, .. r]);
-                        logs.Add(Math.Log(levels.PeriodFactor(beta, ReferenceOf(r), amp.InputOffsetV)));
+                        logs.Add(Math.Log(levels.PeriodFactor(beta, reference, amp.InputOffsetV)));
+                        var (_, upper) = RelaxationTiming.EdgeMultipliers(beta, levels.HighRel(reference), levels.LowRel(reference));
+                        if (double.IsFinite(upper))
+                            upperMultiplier = Math.Max(upperMultiplier, upper);
                     }
                 groups.Add(new TupleGroup([r1, r2, .. referenceSlots], tuples, logs));
                 bounds.Add(new LogBound(FigureNames.Frequency,
                     [new LogTerm(Slot(Roles.OscR), 1), new LogTerm(Slot(Roles.OscC), 1), new LogTerm(0, 1, IsGroup: true)],
-                    LogOrMinusInfinity(periodMin - 2 * edge) - Margin, LogOrMinusInfinity(periodMax - 2 * edge) + Margin));
+                    LogOrMinusInfinity(periodMin - upperMultiplier * 2 * edge) - Margin,
+                    LogOrMinusInfinity(periodMax - ProvedLowerEdgeMultiplier * 2 * edge) + Margin));
             }
         }
         else if (referenceTuples.Count <= MaxTuples)
