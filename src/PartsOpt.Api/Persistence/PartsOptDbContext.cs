@@ -1,5 +1,7 @@
 using Microsoft.EntityFrameworkCore;
+using PartsOpt.Api.Keys;
 using PartsOpt.Api.Movements;
+using PartsOpt.Api.Security;
 using PartsOpt.Api.Parts;
 
 namespace PartsOpt.Api.Persistence;
@@ -12,6 +14,8 @@ public sealed class PartsOptDbContext(DbContextOptions<PartsOptDbContext> option
 {
     public DbSet<Part> Parts => Set<Part>();
     public DbSet<Movement> Movements => Set<Movement>();
+    public DbSet<ApiKey> ApiKeys => Set<ApiKey>();
+    public DbSet<IdempotencyRecord> IdempotencyRecords => Set<IdempotencyRecord>();
 
     protected override void OnModelCreating(ModelBuilder modelBuilder) =>
         modelBuilder.ApplyConfigurationsFromAssembly(typeof(PartsOptDbContext).Assembly);
