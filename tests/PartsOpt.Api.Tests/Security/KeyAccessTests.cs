@@ -83,7 +83,7 @@ public sealed class KeyAccessTests(StockFactory factory) : IClassFixture<StockFa
     [Fact]
     public async Task A_new_key_is_shown_once_and_never_listed()
     {
-        var response = await _admin.PostAsJsonAsync("/api/v1/keys", new { name = "ci-pipeline", roles = new[] { "viewer" } });
+        var response = await _admin.PostAsJsonAsync("/api/v1/keys", new { name = "ci-pipeline", roles = new List<string> { "viewer" } });
         Assert.Equal(HttpStatusCode.Created, response.StatusCode);
         var created = (await response.Content.ReadFromJsonAsync<CreatedKeyDto>(Api.Json))!;
         Assert.StartsWith("po_", created.Key, StringComparison.Ordinal);
@@ -115,21 +115,21 @@ public sealed class KeyAccessTests(StockFactory factory) : IClassFixture<StockFa
     public async Task Bad_new_keys_are_400_naming_the_field_and_a_taken_name_is_409()
     {
         var bad = await _admin.PostAsJsonAsync("/api/v1/keys",
-            new { name = "has space", roles = new[] { "root" }, expiresAt = DateTimeOffset.UtcNow.AddDays(-1) });
+            new { name = "has space", roles = new List<string> { "root" }, expiresAt = DateTimeOffset.UtcNow.AddDays(-1) });
         var problem = await bad.AssertProblem(HttpStatusCode.BadRequest);
         Assert.NotEmpty(problem.ErrorsFor("name"));
         Assert.NotEmpty(problem.ErrorsFor("roles"));
         Assert.NotEmpty(problem.ErrorsFor("expiresAt"));
 
         await factory.CreateKeyAsync("twice", "viewer");
-        var again = await _admin.PostAsJsonAsync("/api/v1/keys", new { name = "twice", roles = new[] { "viewer" } });
+        var again = await _admin.PostAsJsonAsync("/api/v1/keys", new { name = "twice", roles = new List<string> { "viewer" } });
         await again.AssertProblem(HttpStatusCode.Conflict);
     }
 
     [Fact]
     public async Task A_revoked_key_is_refused_from_the_next_request_on()
     {
-        var response = await _admin.PostAsJsonAsync("/api/v1/keys", new { name = "leaked", roles = new[] { "stockkeeper" } });
+        var response = await _admin.PostAsJsonAsync("/api/v1/keys", new { name = "leaked", roles = new List<string> { "stockkeeper" } });
         var created = (await response.Content.ReadFromJsonAsync<CreatedKeyDto>(Api.Json))!;
         var leaked = factory.ClientWithKey(created.Key);
         Assert.Equal(HttpStatusCode.OK, (await leaked.GetAsync("/api/v1/parts")).StatusCode);
@@ -150,7 +150,7 @@ public sealed class KeyAccessTests(StockFactory factory) : IClassFixture<StockFa
     public async Task An_expired_key_is_refused()
     {
         var response = await _admin.PostAsJsonAsync("/api/v1/keys",
-            new { name = "short-lived", roles = new[] { "viewer" }, expiresAt = DateTimeOffset.UtcNow.AddSeconds(1.5) });
+            new { name = "short-lived", roles = new List<string> { "viewer" }, expiresAt = DateTimeOffset.UtcNow.AddSeconds(1.5) });
         var created = (await response.Content.ReadFromJsonAsync<CreatedKeyDto>(Api.Json))!;
         var client = factory.ClientWithKey(created.Key);
         Assert.Equal(HttpStatusCode.OK, (await client.GetAsync("/api/v1/parts")).StatusCode);
