@@ -19,8 +19,9 @@ internal static partial class KeyRules
             errors["name"] = [$"Letters, digits and . _ @ - only, starting with a letter or digit; at most {MaxNameLength} characters."];
         if (input.Roles is not { Count: > 0 })
             errors["roles"] = [$"At least one of: {string.Join(", ", KeyRoles.All)}."];
-        else if (input.Roles.FirstOrDefault(r => !KeyRoles.IsKnown(r ?? "")) is { } unknown)
-            errors["roles"] = [$"Unknown role '{unknown}'; roles are {string.Join(", ", KeyRoles.All)}."];
+        else if (input.Roles.Any(r => r is null || !KeyRoles.IsKnown(r)))
+            errors["roles"] = [$"Unknown role '{input.Roles.First(r => r is null || !KeyRoles.IsKnown(r)) ?? "null"}'; " +
+                $"roles are {string.Join(", ", KeyRoles.All)}."];
         if (input.ExpiresAt is { } expires && expires.UtcDateTime <= nowUtc)
             errors["expiresAt"] = ["Must be in the future."];
         return errors;

@@ -121,6 +121,10 @@ public sealed class KeyAccessTests(StockFactory factory) : IClassFixture<StockFa
         Assert.NotEmpty(problem.ErrorsFor("roles"));
         Assert.NotEmpty(problem.ErrorsFor("expiresAt"));
 
+        // Found by the hostile suite: a null role once slipped through and made a key with no role at all.
+        var nullRole = await _admin.PostJson("/api/v1/keys", """{"name":"no-role","roles":[null]}""");
+        Assert.NotEmpty((await nullRole.AssertProblem(HttpStatusCode.BadRequest)).ErrorsFor("roles"));
+
         await factory.CreateKeyAsync("twice", "viewer");
         var again = await _admin.PostAsJsonAsync("/api/v1/keys", new { name = "twice", roles = new List<string> { "viewer" } });
         await again.AssertProblem(HttpStatusCode.Conflict);
