@@ -97,6 +97,10 @@ public sealed class LimitsTests
         Assert.Equal(HttpStatusCode.OK, ui.StatusCode);
         Assert.Equal(SecurityHeaders.UiPolicy, Header(ui, "Content-Security-Policy"));
         Assert.Contains("frame-ancestors 'none'", Header(ui, "Content-Security-Policy"), StringComparison.Ordinal);
+        // script-src 'self' only holds while the page loads every script from a file, none inline.
+        var page = await ui.Content.ReadAsStringAsync();
+        Assert.Contains("<script src=", page, StringComparison.Ordinal);
+        Assert.DoesNotContain("<script>", page, StringComparison.Ordinal);
     }
 
     [Fact]
