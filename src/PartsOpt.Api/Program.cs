@@ -4,10 +4,12 @@ using PartsOpt.Api.Circuits;
 using PartsOpt.Api.DesignSearches;
 using Microsoft.OpenApi;
 using PartsOpt.Api.Health;
+using PartsOpt.Api.Keys;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
 using PartsOpt.Api.Problems;
 using PartsOpt.Api.Webhooks;
+using PartsOpt.Api.Security;
 
 var builder = WebApplication.CreateBuilder(args);
 
@@ -26,7 +28,14 @@ builder.Services.ConfigureHttpJsonOptions(options =>
     options.SerializerOptions.DefaultIgnoreCondition = JsonIgnoreCondition.WhenWritingNull;
     // The library's enums (check severity, corner method, search status…) travel as camelCase names.
     options.SerializerOptions.Converters.Add(new JsonStringEnumConverter(JsonNamingPolicy.CamelCase));
+    options.SerializerOptions.MaxDepth = 32; // no request of ours nests deeper; deeper is refused as bad JSON
 });
+
+// Who may do what (docs/security.md): API keys as bearer tokens, a policy per role; limits per key and on
+// the solver; security headers; CORS closed unless configured.
+builder.Services.AddKeyAuthorization();
+builder.Services.AddPartsOptRateLimits();
+builder.Services.AddConfiguredCors();
 
 builder.Services.AddPartsOptDatabase();
 builder.Services.AddWebhooks();
@@ -43,6 +52,16 @@ builder.Services.AddSwaggerGen(options =>
     });
     options.IncludeXmlComments(Path.Combine(AppContext.BaseDirectory, "PartsOpt.Api.xml"));
     options.IncludeXmlComments(Path.Combine(AppContext.BaseDirectory, "PartsOpt.Core.xml"));
+    options.AddSecurityDefinition("bearer", new OpenApiSecurityScheme
+    {
+        Type = SecuritySchemeType.Http,
+        Scheme = "bearer",
+        Description = "An API key (po_…) as 'Authorization: Bearer <key>'. Every endpoint but /health needs one.",
+    });
+    options.AddSecurityRequirement(document => new OpenApiSecurityRequirement
+    {
+        [new OpenApiSecuritySchemeReference("bearer", document)] = [],
+    });
     options.MapType<PartValue>(() => new OpenApiSchema
     {
         Type = JsonSchemaType.Number | JsonSchemaType.String,
@@ -52,14 +71,24 @@ builder.Services.AddSwaggerGen(options =>
 
 var app = builder.Build();
 
+app.UseSecurityHeaders();
 app.UseExceptionHandler();
 app.UseStatusCodePages();
 app.UseSwagger();
 app.UseSwaggerUI();
+app.UseRouting();
+app.UseCors();
+app.UseAuthentication();
+app.UseAuthorization();
+app.UseRateLimiter();
+app.UseRequestBodyLimit();
+app.UseIdempotency();
 
 await app.InitialiseDatabaseAsync();
+await app.EnsureAdminKeyAsync();
 
 app.MapHealth();
+app.MapKeys();
 app.MapParts();
 app.MapCircuits();
 app.MapDesignSearches();

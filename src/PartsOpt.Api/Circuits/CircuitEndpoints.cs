@@ -1,8 +1,10 @@
 using Microsoft.AspNetCore.Http.HttpResults;
 using PartsOpt.Analysis;
 using PartsOpt.Api.Common;
+using PartsOpt.Api.Keys;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
+using PartsOpt.Api.Security;
 using PartsOpt.Simulation;
 using PartsOpt.Topologies;
 using PartsOpt.Values;
@@ -17,7 +19,9 @@ public static class CircuitEndpoints
 
     public static IEndpointRouteBuilder MapCircuits(this IEndpointRouteBuilder app)
     {
-        var circuits = app.MapGroup("/api/v1/circuits").WithTags("Circuits");
+        var circuits = app.MapGroup("/api/v1/circuits").WithTags("Circuits")
+            .RequireAuthorization(Policies.Designer)
+            .RequireRateLimiting(RateLimits.Solver);
         circuits.MapPost("/evaluate", Evaluate).WithName("EvaluateCircuit")
             .WithSummary("Analyses a design: figures, checks, sensitivities, worst case, root-sum-square, Monte Carlo, temperature drift and a time-domain simulation.");
         return app;

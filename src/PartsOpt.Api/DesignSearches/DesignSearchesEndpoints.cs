@@ -8,6 +8,8 @@ using PartsOpt.Api.Movements;
 using PartsOpt.Api.Persistence;
 using PartsOpt.Api.Webhooks;
 using PartsOpt.Api.Problems;
+using PartsOpt.Api.Keys;
+using PartsOpt.Api.Security;
 using PartsOpt.Search;
 using PartsOpt.Topologies;
 using PartsOpt.Values;
@@ -28,7 +30,10 @@ public static class DesignSearchesEndpoints
 
     public static IEndpointRouteBuilder MapDesignSearches(this IEndpointRouteBuilder app)
     {
-        var searches = app.MapGroup("/api/v1/design-searches").WithTags("Design searches");
+        var searches = app.MapGroup("/api/v1/design-searches").WithTags("Design searches")
+            .RequireAccess(readPolicy: Policies.Viewer, writePolicy: Policies.Designer)
+            .RequireRateLimiting(RateLimits.Solver)
+            .WithIdempotency();
         searches.MapPost("/", Create).WithName("CreateDesignSearch")
             .WithSummary("Searches the available stock for the cheapest designs meeting a requirement; stores and returns them.")
             .Validate<DesignSearchInput>(DesignSearchRules.Validate);
@@ -36,7 +41,8 @@ public static class DesignSearchesEndpoints
             .WithSummary("A stored search with its designs in rank order, each flagged stale when the stock has fallen short.")
             .ProducesProblem(StatusCodes.Status404NotFound);
 
-        var designs = app.MapGroup("/api/v1/designs").WithTags("Designs");
+        var designs = app.MapGroup("/api/v1/designs").WithTags("Designs")
+            .RequireAccess(readPolicy: Policies.Viewer, writePolicy: Policies.Designer);
         designs.MapGet("/{id:int}", GetDesign).WithName("GetDesign")
             .WithSummary("One stored design, flagged stale when the stock has fallen short.")
             .ProducesProblem(StatusCodes.Status404NotFound);

@@ -16,6 +16,7 @@ public static class HealthEndpoints
             .WithName("Health")
             .WithSummary("Is the service up and its database reachable?")
             .WithTags("Health")
+            .AllowAnonymous()
             .ProducesProblem(StatusCodes.Status503ServiceUnavailable);
         return app;
     }

@@ -1,20 +1,14 @@
 namespace PartsOpt.Api.Movements;
 
 /// <summary>
-/// Who a ledger row is booked to. Until API keys exist this is the <c>X-Actor</c> header, else "anonymous";
-/// this is the one place that decides, so the keys issue changes only this file.
+/// Who a change is booked to: the NAME of the API key that made the request (the authenticated principal's
+/// name). An <c>X-Actor</c> header is ignored: a caller cannot book a change to someone else. "anonymous"
+/// only where no key was needed, which no write allows.
 /// </summary>
 public static class Actor
 {
-    public const string Header = "X-Actor";
     public const string Anonymous = "anonymous";
-    private const int MaxLength = 100;
 
-    public static string Of(HttpContext context)
-    {
-        var name = context.Request.Headers[Header].ToString().Trim();
-        if (name.Length == 0)
-            return Anonymous;
-        return name.Length <= MaxLength ? name : name[..MaxLength];
-    }
+    public static string Of(HttpContext context) =>
+        context.User.Identity is { IsAuthenticated: true, Name: { Length: > 0 } name } ? name : Anonymous;
 }

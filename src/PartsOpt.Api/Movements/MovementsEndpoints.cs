@@ -4,6 +4,7 @@ using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
 using PartsOpt.Api.Problems;
 using PartsOpt.Api.Webhooks;
+using PartsOpt.Api.Security;
 
 namespace PartsOpt.Api.Movements;
 
@@ -25,6 +26,7 @@ public static class MovementsEndpoints
         movements.MapPost("/", Post).WithName("PostMovement")
             .WithSummary("Books a receipt (quantity > 0) or an adjustment (either sign) against a part.")
             .Validate<MovementInput>(Validate)
+            .WithIdempotency()
             .ProducesProblem(StatusCodes.Status404NotFound)
             .ProducesProblem(StatusCodes.Status409Conflict);
         return parts;

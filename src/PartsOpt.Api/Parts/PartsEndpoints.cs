@@ -1,9 +1,11 @@
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.EntityFrameworkCore;
+using PartsOpt.Api.Keys;
 using PartsOpt.Api.Movements;
 using PartsOpt.Api.Persistence;
 using PartsOpt.Api.Parts.Csv;
 using PartsOpt.Api.Problems;
+using PartsOpt.Api.Security;
 
 namespace PartsOpt.Api.Parts;
 
@@ -12,7 +14,9 @@ public static class PartsEndpoints
 {
     public static IEndpointRouteBuilder MapParts(this IEndpointRouteBuilder app)
     {
-        var parts = app.MapGroup("/api/v1/parts").WithTags("Parts");
+        // Reads for viewers, writes for stockkeepers (the movements and CSV endpoints are in the group too).
+        var parts = app.MapGroup("/api/v1/parts").WithTags("Parts")
+            .RequireAccess(readPolicy: Policies.Viewer, writePolicy: Policies.Stockkeeper);
 
         parts.MapGet("/", PartQueries.List).WithName("ListParts")
             .WithSummary("Parts in part-number order, filtered by kind, value range and text; paged.");
@@ -22,7 +26,8 @@ public static class PartsEndpoints
         parts.MapPost("/", Create).WithName("CreatePart")
             .WithSummary("Adds a part; an initialQuantity is booked as a receipt.")
             .ProducesProblem(StatusCodes.Status409Conflict)
-            .Validate<PartInput>(PartRules.Validate);
+            .Validate<PartInput>(PartRules.Validate)
+            .WithIdempotency();
         parts.MapPut("/{partNumber}", Update).WithName("UpdatePart")
             .WithSummary("Replaces a part's fields (never its quantity; the kind cannot change).")
             .ProducesProblem(StatusCodes.Status404NotFound)

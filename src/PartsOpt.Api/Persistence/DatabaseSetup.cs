@@ -25,9 +25,13 @@ public static class DatabaseSetup
         return services;
     }
 
+    /// <summary>The full path of the database file.</summary>
+    public static string DatabaseFile(IConfiguration configuration) =>
+        Path.GetFullPath(configuration[DatabasePathKey] is { Length: > 0 } p ? p : DefaultDatabasePath);
+
     public static string ConnectionString(IConfiguration configuration)
     {
-        var path = Path.GetFullPath(configuration[DatabasePathKey] is { Length: > 0 } p ? p : DefaultDatabasePath);
+        var path = DatabaseFile(configuration);
         Directory.CreateDirectory(Path.GetDirectoryName(path)!);
         return new SqliteConnectionStringBuilder { DataSource = path, ForeignKeys = true }.ToString();
     }

@@ -1,6 +1,8 @@
 using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.DesignSearches;
+using PartsOpt.Api.Keys;
 using PartsOpt.Api.Movements;
+using PartsOpt.Api.Security;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Webhooks;
 
@@ -21,6 +23,8 @@ public sealed class PartsOptDbContext(DbContextOptions<PartsOptDbContext> option
     public DbSet<Subscription> Subscriptions => Set<Subscription>();
     public DbSet<Delivery> Deliveries => Set<Delivery>();
     public DbSet<DeliveryAttempt> DeliveryAttempts => Set<DeliveryAttempt>();
+    public DbSet<ApiKey> ApiKeys => Set<ApiKey>();
+    public DbSet<IdempotencyRecord> IdempotencyRecords => Set<IdempotencyRecord>();
 
     protected override void OnModelCreating(ModelBuilder modelBuilder) =>
         modelBuilder.ApplyConfigurationsFromAssembly(typeof(PartsOptDbContext).Assembly);

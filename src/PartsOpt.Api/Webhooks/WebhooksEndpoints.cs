@@ -3,6 +3,7 @@ using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.Movements;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
+using PartsOpt.Api.Keys;
 using PartsOpt.Api.Problems;
 
 namespace PartsOpt.Api.Webhooks;
@@ -12,7 +13,9 @@ public static class WebhooksEndpoints
 {
     public static IEndpointRouteBuilder MapWebhooks(this IEndpointRouteBuilder app)
     {
-        var webhooks = app.MapGroup("/api/v1/webhooks").WithTags("Webhooks");
+        // Admin only. No Idempotency-Key replay: the subscribe answer carries the signing secret, which must
+        // not be stored a second time (the same reason key creation has none).
+        var webhooks = app.MapGroup("/api/v1/webhooks").WithTags("Webhooks").RequireAuthorization(Policies.Admin);
 
         webhooks.MapPost("/", Subscribe).WithName("Subscribe")
             .WithSummary("Subscribes a URL to event types; the answer shows the signing secret, once.")

@@ -18,14 +18,11 @@ public sealed class DeliveryTests
         var subscription = await client.Subscribe(receiver.Url, "stock.imported", "stock.low");
         receiver.Secret = subscription.Secret;
 
-        using (var request = new HttpRequestMessage(HttpMethod.Post, "/api/v1/parts/import")
-               {
-                   Content = new StringContent(Webhook.CsvHeader + "\r\nR-WH-1,resistor,1k,F,50,10\r\n", System.Text.Encoding.UTF8, "text/csv"),
-               })
-        {
-            request.Headers.Add(Actor.Header, "stores-jo");
-            Assert.Equal(HttpStatusCode.OK, (await client.SendAsync(request)).StatusCode);
-        }
+        // The actor is the name of the API key that made the change.
+        var storesJo = factory.ClientWithKey(await factory.CreateKeyAsync("stores-jo", "stockkeeper"));
+        var imported1 = await storesJo.PostAsync("/api/v1/parts/import",
+            new StringContent(Webhook.CsvHeader + "\r\nR-WH-1,resistor,1k,F,50,10\r\n", System.Text.Encoding.UTF8, "text/csv"));
+        Assert.Equal(HttpStatusCode.OK, imported1.StatusCode);
         await client.Book("R-WH-1", "adjustment", -45); // 50 -> 5, below 10
 
         await Webhook.Eventually(() => receiver.Accepted.Count >= 2, "two events");

@@ -3,6 +3,7 @@ using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.Movements;
 using PartsOpt.Api.Persistence;
+using PartsOpt.Api.Security;
 
 namespace PartsOpt.Api.Parts.Csv;
 
@@ -20,7 +21,9 @@ public static class PartsCsvEndpoints
             .Accepts<string>(CsvType)
             .ProducesValidationProblem()
             .ProducesProblem(StatusCodes.Status413PayloadTooLarge)
-            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType);
+            .ProducesProblem(StatusCodes.Status415UnsupportedMediaType)
+            .WithBodyLimit(null) // bounded below by Import:MaxBytes instead of the general limit
+            .WithIdempotency();
         parts.MapGet("/export", Export).WithName("ExportParts")
             .WithSummary("Every part as CSV, in the import format (imports back unchanged).")
             .Produces<string>(StatusCodes.Status200OK, CsvType);
