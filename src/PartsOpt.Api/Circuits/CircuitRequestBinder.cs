@@ -1,5 +1,6 @@
 using Microsoft.EntityFrameworkCore;
 using PartsOpt.Analysis;
+using PartsOpt.Api.Common;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
 using PartsOpt.Topologies;

@@ -1,4 +1,5 @@
 using System.Text.Json.Serialization;
+using PartsOpt.Api.Common;
 using PartsOpt.Api.Parts;
 
 namespace PartsOpt.Api.Circuits;
@@ -34,18 +35,6 @@ public sealed record EvaluateCircuitRequest
     public AnalysisInput? Analysis { get; init; }
 }
 
-/// <summary>Supply rails in volts.</summary>
-public sealed record SupplyInput
-{
-    /// <summary>V+ in volts (above 0).</summary>
-    [JsonConverter(typeof(VoltsJson))]
-    public double? Positive { get; init; }
-
-    /// <summary>V− in volts (0 for a single supply, else below 0).</summary>
-    [JsonConverter(typeof(VoltsJson))]
-    public double? Negative { get; init; }
-}
-
 /// <summary>An op-amp or comparator: a stocked part, or its limits written out.</summary>
 public sealed record OpAmpInput
 {
@@ -64,13 +53,6 @@ public sealed record DutyInput
 
     /// <summary>With "controlVoltage": the range of the threshold voltage in volts.</summary>
     public RangeInput? ControlRange { get; init; }
-}
-
-/// <summary>A closed range.</summary>
-public sealed record RangeInput
-{
-    public double? Min { get; init; }
-    public double? Max { get; init; }
 }
 
 /// <summary>The part in one role: a stocked part number, or a value with its tolerance and drift.</summary>

@@ -1,4 +1,5 @@
 using System.Text.Json.Serialization;
+using PartsOpt.Api.Common;
 using PartsOpt.Api.Parts;
 
 namespace PartsOpt.Api.DesignSearches;
@@ -11,7 +12,7 @@ namespace PartsOpt.Api.DesignSearches;
 /// <summary>What the team wants built, as a client sends it.</summary>
 public sealed record DesignSearchInput
 {
-    public SearchSupplyInput? Supply { get; init; }
+    public SupplyInput? Supply { get; init; }
     public SearchBandInput? Frequency { get; init; }
 
     /// <summary>Peak-to-peak of the triangle or ramp, V; absent when any amplitude will do.</summary>
@@ -31,7 +32,7 @@ public sealed record DesignSearchInput
     public YieldInput? Yield { get; init; }
 
     /// <summary>Ambient range, °C.</summary>
-    public SearchRangeInput? Temperature { get; init; }
+    public RangeInput? Temperature { get; init; }
 
     /// <summary>Let a resistor or capacitor role take two stocked parts in series or parallel (default false).</summary>
     public bool? AllowCombinations { get; init; }
@@ -43,16 +44,6 @@ public sealed record DesignSearchInput
 
     /// <summary>Wall time the search may take, seconds, up to 60 (default 10).</summary>
     public double? TimeLimitSeconds { get; init; }
-}
-
-/// <summary>The rails, V; a negative rail of 0 (the default) is a single supply.</summary>
-public sealed record SearchSupplyInput
-{
-    [JsonConverter(typeof(VoltsJson))]
-    public double? Positive { get; init; }
-
-    [JsonConverter(typeof(VoltsJson))]
-    public double? Negative { get; init; }
 }
 
 /// <summary>A target and the fraction either side of it (0.05 for ±5 %).</summary>
@@ -72,14 +63,7 @@ public sealed record SearchDutyInput
     public string? Adjust { get; init; }
 
     /// <summary>The control voltage's range (absolute, V); required with "controlVoltage" only.</summary>
-    public SearchRangeInput? ControlRange { get; init; }
-}
-
-/// <summary>A range, min to max.</summary>
-public sealed record SearchRangeInput
-{
-    public double? Min { get; init; }
-    public double? Max { get; init; }
+    public RangeInput? ControlRange { get; init; }
 }
 
 /// <summary>The high level must reach at least <see cref="MinHigh"/>, the low level at most <see cref="MaxLow"/> (V).</summary>
