@@ -31,13 +31,20 @@ internal static class InfeasibilityReport
         if (tracker.Nearest(topology) is { } near)
         {
             var counted = string.Join(", ", misses.Select(m => $"{Phrase(m.Target)} ({m.Count}×)"));
-            blocking = $"Every candidate that met the frequency relaxation and the stock failed the exact analysis; misses: {counted}.";
+            blocking = complete
+                ? $"Every candidate that met the frequency relaxation and the stock failed the exact analysis; misses: {counted}."
+                : $"Every candidate examined before the time limit failed the exact analysis (not proved for the rest); misses: {counted}.";
             nearest = Describe(near.Variant, near.Choice, near.Judgement);
         }
         else if (timeLeft && !StockCoversOneBoardSet(plan.Variants[0], deadlineUtc))
         {
             blocking = $"Not enough stock for {context.Requirement.BuildQuantity} boards: the roles cannot all be filled from what is available, " +
                 "counting every role that shares a part number.";
+        }
+        else if (!complete)
+        {
+            // Nothing examined and nothing proved: say so rather than claim the band cannot be reached.
+            blocking = "The time limit ran out before any candidate of this topology was examined; nothing is proved about it.";
         }
         else
         {

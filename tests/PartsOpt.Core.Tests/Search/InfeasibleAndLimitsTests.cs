@@ -118,6 +118,17 @@ public class InfeasibleAndLimitsTests
     }
 
     [Fact]
+    public void A_search_cut_short_claims_nothing_it_did_not_prove()
+    {
+        // So short a limit that no topology is finished: a report may say what was seen, never that the band
+        // cannot be reached (this stock reaches 20 kHz; see the 20 kHz tests).
+        var outcome = DesignSearch.Run(PwmAt20Kilohertz(), LargeStockroom(), new SearchOptions(TimeSpan.FromMilliseconds(1)));
+
+        Assert.All(outcome.Topologies.Where(t => !t.Feasible && !t.Proved), t =>
+            Assert.DoesNotContain("No stocked combination", t.Blocking ?? "", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public void CancelledSearchReturnsWithoutClaimingAnything()
     {
         using var cancelled = new CancellationTokenSource();
