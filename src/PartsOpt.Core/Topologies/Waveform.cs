@@ -131,7 +131,7 @@ internal struct Waveform
         w.RampMinRel = w.Ramp.MinV;
         var slopeMax = 0.0;
         for (var i = 0; i < w.Ramp.Count; i++)
-            slopeMax = Math.Max(slopeMax, Math.Abs(w.Ramp[i].SlopeAt(0)));
+            slopeMax = Math.Max(slopeMax, Math.Abs(w.Ramp[i].StartSlope));
         w.IntegratorSlopeMax = slopeMax;
         w.LinearityErrorPercent = 100 * w.Ramp.LinearityError();
         return true;
