@@ -127,7 +127,8 @@ internal struct RampPieces
         var first = 0;
         for (var i = 0; i < Count; i++)
         {
-            var prev = this[(i + Count - 1) % Count];
+            // Cyclic neighbours by a compare, not %: an integer division per step was a visible cost here.
+            ref readonly var prev = ref this[i == 0 ? Count - 1 : i - 1];
             if (this[i].EndV < this[i].StartV && prev.EndV >= prev.StartV)
                 first = i;
         }
@@ -135,7 +136,8 @@ internal struct RampPieces
         double worst = 0, elapsedFall = 0, elapsedRise = 0;
         for (var k = 0; k < Count; k++)
         {
-            var piece = this[(first + k) % Count];
+            var index = first + k < Count ? first + k : first + k - Count;
+            ref readonly var piece = ref this[index];
             var falling = piece.EndV < piece.StartV;
             double chordStart = falling ? MaxV : MinV, runS = falling ? fallS : riseS;
             var elapsed = falling ? elapsedFall : elapsedRise;
