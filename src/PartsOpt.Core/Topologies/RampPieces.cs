@@ -133,15 +133,15 @@ internal struct RampPieces
                 first = i;
         }
 
-        double worst = 0, elapsedFall = 0, elapsedRise = 0;
+        double worst = 0, elapsedFall = 0, elapsedRise = 0, fallSlope = -swing / fallS, riseSlope = swing / riseS;
         for (var k = 0; k < Count; k++)
         {
             var index = first + k < Count ? first + k : first + k - Count;
             ref readonly var piece = ref this[index];
             var falling = piece.EndV < piece.StartV;
-            double chordStart = falling ? MaxV : MinV, runS = falling ? fallS : riseS;
+            var chordStart = falling ? MaxV : MinV;
             var elapsed = falling ? elapsedFall : elapsedRise;
-            var chordSlope = (falling ? -swing : swing) / runS;
+            var chordSlope = falling ? fallSlope : riseSlope;
             worst = Math.Max(worst, Math.Abs(Deviation(piece, chordStart, chordSlope, elapsed)));
             if (falling) elapsedFall += piece.DurationS;
             else elapsedRise += piece.DurationS;
