@@ -258,7 +258,9 @@ internal struct RampPieces
 
     private void Extend(double v)
     {
-        MaxV = Math.Max(MaxV, v);
-        MinV = Math.Min(MinV, v);
+        // Plain comparisons (Math.Max/Min's signed-zero handling cost more here than the rest of the
+        // bookkeeping); a NaN still sticks, as with Math.Max/Min, so a failed piece shows in the figures.
+        if (v > MaxV || double.IsNaN(v)) MaxV = v;
+        if (v < MinV || double.IsNaN(v)) MinV = v;
     }
 }
