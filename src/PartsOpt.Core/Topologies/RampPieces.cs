@@ -53,6 +53,18 @@ internal struct RampPieces
     public static RampPieces Driven(double gain, double tauS, double levelHigh, double levelLow,
         double edgeS, double lowHeldS, double highHeldS, double startV = double.NaN)
     {
+        var pieces = default(RampPieces);
+        pieces.FillDriven(gain, tauS, levelHigh, levelLow, edgeS, lowHeldS, highHeldS, startV);
+        return pieces;
+    }
+
+    /// <summary>
+    /// <see cref="Driven"/> written in place (over whatever was here), so a caller that keeps the pieces
+    /// in a larger struct does not copy them.
+    /// </summary>
+    public void FillDriven(double gain, double tauS, double levelHigh, double levelLow,
+        double edgeS, double lowHeldS, double highHeldS, double startV = double.NaN)
+    {
         var slew = edgeS > 0 ? (levelHigh - levelLow) / edgeS : 0;
         // Each phase's exponential depends only on its duration, and the two edges share one: three per
         // period, computed once here for both the periodic start and the pieces.
@@ -73,13 +85,14 @@ internal struct RampPieces
             v0 = c / x;
         }
 
-        var pieces = new RampPieces { MaxV = double.NegativeInfinity, MinV = double.PositiveInfinity };
+        Count = 0;
+        MaxV = double.NegativeInfinity;
+        MinV = double.PositiveInfinity;
         var v = v0;
-        v = pieces.Phase(v, gain * levelHigh, -gain * slew, edge, tauS);
-        v = pieces.Phase(v, gain * levelLow, 0, lowHeld, tauS);
-        v = pieces.Phase(v, gain * levelLow, gain * slew, edge, tauS);
-        pieces.Phase(v, gain * levelHigh, 0, highHeld, tauS);
-        return pieces;
+        v = Phase(v, gain * levelHigh, -gain * slew, edge, tauS);
+        v = Phase(v, gain * levelLow, 0, lowHeld, tauS);
+        v = Phase(v, gain * levelLow, gain * slew, edge, tauS);
+        Phase(v, gain * levelHigh, 0, highHeld, tauS);
     }
 
     /// <summary>

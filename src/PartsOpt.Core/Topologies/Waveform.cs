@@ -126,7 +126,7 @@ internal struct Waveform
             w.HighTimeS - edge, w.Ratio * w.LevelHighRel);
         w.CapacitorSwingV = capacitor.MaxV - capacitor.MinV;
         var tau = v.IntRf * v.IntC;
-        w.Ramp = RampPieces.Driven(-v.IntRf / v.IntR, tau, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge, w.HighTimeS - edge);
+        w.Ramp.FillDriven(-v.IntRf / v.IntR, tau, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge, w.HighTimeS - edge);
         w.RampMaxRel = w.Ramp.MaxV;
         w.RampMinRel = w.Ramp.MinV;
         var slopeMax = 0.0;
