@@ -7,28 +7,29 @@ namespace PartsOpt.Topologies;
 /// </summary>
 internal struct RampPieces
 {
-    private RampSegment p0, p1, p2, p3, p4, p5;
+    private Six _pieces;
     public int Count;
     public double MaxV, MinV;
 
-    public readonly RampSegment this[int i] => i switch
+    /// <summary>
+    /// Six pieces inline. An inline array rather than six fields behind a switch, so the pieces are read
+    /// by reference: the loops over them below copied a 56-byte piece per access and dominated the
+    /// evaluation's cost.
+    /// </summary>
+    [System.Runtime.CompilerServices.InlineArray(6)]
+    private struct Six
     {
-        0 => p0, 1 => p1, 2 => p2, 3 => p3, 4 => p4, _ => p5,
-    };
+        private RampSegment _first;
+    }
+
+    [System.Diagnostics.CodeAnalysis.UnscopedRef]
+    public readonly ref readonly RampSegment this[int i] => ref _pieces[Math.Min(i, 5)];
 
     public void Add(in RampSegment piece)
     {
         if (piece.DurationS <= 0)
             return;
-        switch (Count++)
-        {
-            case 0: p0 = piece; break;
-            case 1: p1 = piece; break;
-            case 2: p2 = piece; break;
-            case 3: p3 = piece; break;
-            case 4: p4 = piece; break;
-            default: p5 = piece; break;
-        }
+        _pieces[Math.Min(Count++, 5)] = piece;
     }
 
     /// <summary>Time per period above <paramref name="thresholdV"/>.</summary>
@@ -52,26 +53,70 @@ internal struct RampPieces
     public static RampPieces Driven(double gain, double tauS, double levelHigh, double levelLow,
         double edgeS, double lowHeldS, double highHeldS, double startV = double.NaN)
     {
+        var pieces = default(RampPieces);
+        pieces.FillDriven(gain, tauS, levelHigh, levelLow, edgeS, lowHeldS, highHeldS, startV);
+        return pieces;
+    }
+
+    /// <summary>
+    /// <see cref="Driven"/> written in place (over whatever was here), so a caller that keeps the pieces
+    /// in a larger struct does not copy them.
+    /// </summary>
+    public void FillDriven(double gain, double tauS, double levelHigh, double levelLow,
+        double edgeS, double lowHeldS, double highHeldS, double startV = double.NaN)
+    {
         var slew = edgeS > 0 ? (levelHigh - levelLow) / edgeS : 0;
-        var period = 2 * edgeS + lowHeldS + highHeldS;
+        // Each phase's exponential depends only on its duration, and the two edges share one: three per
+        // period, computed once here for both the periodic start and the pieces.
+        var edge = new Decay(edgeS, tauS);
+        var lowHeld = new Decay(lowHeldS, tauS);
+        var highHeld = new Decay(highHeldS, tauS);
         var v0 = startV;
         if (double.IsNaN(v0))
         {
             var c = 0.0;
-            c = End(c, gain * levelHigh, -gain * slew, edgeS, tauS);
-            c = End(c, gain * levelLow, 0, lowHeldS, tauS);
-            c = End(c, gain * levelLow, gain * slew, edgeS, tauS);
-            c = End(c, gain * levelHigh, 0, highHeldS, tauS);
-            v0 = c / -Accurate.ExpM1(-period / tauS);
+            c = edge.End(c, gain * levelHigh, -gain * slew, tauS);
+            c = lowHeld.End(c, gain * levelLow, 0, tauS);
+            c = edge.End(c, gain * levelLow, gain * slew, tauS);
+            c = highHeld.End(c, gain * levelHigh, 0, tauS);
+            // 1 − e^(−T/τ) from the phases' own: 1 − e^(−a−b) = x_a + x_b − x_a·x_b, all terms of one sign
+            // (no cancellation), so no fourth exponential.
+            var x = Decay.Join(Decay.Join(Decay.Join(edge.X, lowHeld.X), edge.X), highHeld.X);
+            v0 = c / x;
         }
 
-        var pieces = new RampPieces { MaxV = double.NegativeInfinity, MinV = double.PositiveInfinity };
+        Count = 0;
+        MaxV = double.NegativeInfinity;
+        MinV = double.PositiveInfinity;
         var v = v0;
-        v = pieces.Phase(v, gain * levelHigh, -gain * slew, edgeS, tauS);
-        v = pieces.Phase(v, gain * levelLow, 0, lowHeldS, tauS);
-        v = pieces.Phase(v, gain * levelLow, gain * slew, edgeS, tauS);
-        pieces.Phase(v, gain * levelHigh, 0, highHeldS, tauS);
-        return pieces;
+        v = Phase(v, gain * levelHigh, -gain * slew, edge, tauS);
+        v = Phase(v, gain * levelLow, 0, lowHeld, tauS);
+        v = Phase(v, gain * levelLow, gain * slew, edge, tauS);
+        Phase(v, gain * levelHigh, 0, highHeld, tauS);
+    }
+
+    /// <summary>
+    /// The exponential factors of one phase of duration d: x = 1 − e^(−u) and the excess u − x, u = d/τ.
+    /// A phase's end is linear in its start value given these, so they are computed once per duration.
+    /// </summary>
+    private readonly struct Decay
+    {
+        public readonly double DurationS, X, Excess;
+
+        public Decay(double durationS, double tauS)
+        {
+            DurationS = durationS;
+            var u = durationS / tauS;
+            X = -Accurate.ExpM1(-u);
+            Excess = RelaxationTiming.ExcessOverChord(u, X);
+        }
+
+        /// <summary>The value at the phase's end from <paramref name="v"/> (unchanged for an empty phase).</summary>
+        public double End(double v, double target, double slope, double tauS) =>
+            DurationS <= 0 ? v : v + (target - v) * X + slope * tauS * Excess;
+
+        /// <summary>1 − e^(−a−b) from x_a = 1 − e^(−a) and x_b = 1 − e^(−b).</summary>
+        public static double Join(double xa, double xb) => xa + xb - xa * xb;
     }
 
     /// <summary>
@@ -95,19 +140,21 @@ internal struct RampPieces
         var first = 0;
         for (var i = 0; i < Count; i++)
         {
-            var prev = this[(i + Count - 1) % Count];
+            // Cyclic neighbours by a compare, not %: an integer division per step was a visible cost here.
+            ref readonly var prev = ref this[i == 0 ? Count - 1 : i - 1];
             if (this[i].EndV < this[i].StartV && prev.EndV >= prev.StartV)
                 first = i;
         }
 
-        double worst = 0, elapsedFall = 0, elapsedRise = 0;
+        double worst = 0, elapsedFall = 0, elapsedRise = 0, fallSlope = -swing / fallS, riseSlope = swing / riseS;
         for (var k = 0; k < Count; k++)
         {
-            var piece = this[(first + k) % Count];
+            var index = first + k < Count ? first + k : first + k - Count;
+            ref readonly var piece = ref this[index];
             var falling = piece.EndV < piece.StartV;
-            double chordStart = falling ? MaxV : MinV, runS = falling ? fallS : riseS;
+            var chordStart = falling ? MaxV : MinV;
             var elapsed = falling ? elapsedFall : elapsedRise;
-            var chordSlope = (falling ? -swing : swing) / runS;
+            var chordSlope = falling ? fallSlope : riseSlope;
             worst = Math.Max(worst, Math.Abs(Deviation(piece, chordStart, chordSlope, elapsed)));
             if (falling) elapsedFall += piece.DurationS;
             else elapsedRise += piece.DurationS;
@@ -130,14 +177,17 @@ internal struct RampPieces
             return value - (chordStart + chordSlope * (elapsedS + at));
         }
 
-        var startSlope = (piece.TargetV - piece.StartV) / piece.TauS;
-        var ratio = (chordSlope - piece.SlopeVPerS) / (startSlope - piece.SlopeVPerS);
-        if (!(ratio > 0 && ratio <= 1))
+        // x = 1 − e^(−t/τ) there, formed directly as a quotient so that it keeps its digits when small;
+        // knowing it, the value needs only the logarithm for t, not another exponential.
+        var startSlope = piece.StartSlope;
+        var x = (startSlope - chordSlope) / (startSlope - piece.SlopeVPerS);
+        if (!(x >= 0 && x < 1))
             return 0;
-        var t = -piece.TauS * Math.Log(ratio);
+        var u = -Accurate.Log1P(-x);
+        var t = piece.TauS * u;
         if (!(t < piece.DurationS))
             return 0;
-        return piece.ValueAt(t) - (chordStart + chordSlope * (elapsedS + t));
+        return piece.ValueAt(u, x) - (chordStart + chordSlope * (elapsedS + t));
     }
 
     /// <summary>
@@ -187,17 +237,10 @@ internal struct RampPieces
         return end;
     }
 
-    private static double End(double v, double target, double slope, double durationS, double tauS)
+    private double Phase(double v, double target, double slope, in Decay decay, double tauS)
     {
-        if (durationS <= 0)
-            return v;
-        var u = durationS / tauS;
-        return v + (target - v) * -Accurate.ExpM1(-u) + slope * tauS * RelaxationTiming.ExcessOverChord(u);
-    }
-
-    private double Phase(double v, double target, double slope, double durationS, double tauS)
-    {
-        var end = End(v, target, slope, durationS, tauS);
+        var end = decay.End(v, target, slope, tauS);
+        var durationS = decay.DurationS;
         Extend(v);
         Extend(end);
         if (durationS <= 0)
@@ -205,11 +248,15 @@ internal struct RampPieces
         if (slope != 0)
         {
             // v′ = 0 where e^(−t/τ) = B·τ/(v0 − A + B·τ), i.e. t = τ·log1p((v0 − A)/(B·τ)).
-            var turn = tauS * Accurate.Log1P((v - target) / (slope * tauS));
+            var r = (v - target) / (slope * tauS);
+            var u = Accurate.Log1P(r);
+            var turn = tauS * u;
             if (turn > 0 && turn < durationS)
             {
+                // There 1 − e^(−t/τ) = r/(1 + r) in closed form, so the peak needs no exponential. (Not
+                // the equal A + B·t: with a long τ, A and B·t are huge and cancel.)
                 var first = new RampSegment(v, double.NaN, turn, target, tauS, slope);
-                var peak = first.ValueAt(turn);
+                var peak = first.ValueAt(u, r / (1 + r));
                 Extend(peak);
                 Add(first with { EndV = peak });
                 // Restart at the turning point: the target there is A + B·t.
@@ -224,7 +271,9 @@ internal struct RampPieces
 
     private void Extend(double v)
     {
-        MaxV = Math.Max(MaxV, v);
-        MinV = Math.Min(MinV, v);
+        // Plain comparisons (Math.Max/Min's signed-zero handling cost more here than the rest of the
+        // bookkeeping); a NaN still sticks, as with Math.Max/Min, so a failed piece shows in the figures.
+        if (v > MaxV || double.IsNaN(v)) MaxV = v;
+        if (v < MinV || double.IsNaN(v)) MinV = v;
     }
 }

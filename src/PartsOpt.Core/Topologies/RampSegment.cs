@@ -27,15 +27,27 @@ internal readonly record struct RampSegment(double StartV, double EndV, double D
     public double ValueAt(double t)
     {
         var u = t / TauS;
-        return StartV + (TargetV - StartV) * -Accurate.ExpM1(-u) + SlopeVPerS * TauS * RelaxationTiming.ExcessOverChord(u);
+        return ValueAt(u, -Accurate.ExpM1(-u));
     }
 
+    /// <summary>
+    /// The value at u = t/τ given x = 1 − e^(−u), for callers that know x already (it is the only
+    /// transcendental in the value, so sharing it with <see cref="SlopeAt(double)"/> halves the cost).
+    /// </summary>
+    public double ValueAt(double u, double x) =>
+        StartV + (TargetV - StartV) * x + SlopeVPerS * TauS * RelaxationTiming.ExcessOverChord(u, x);
+
     /// <summary>dv/dt at <paramref name="t"/> seconds into the piece (not for straight pieces).</summary>
-    public double SlopeAt(double t)
-    {
-        var x = -Accurate.ExpM1(-t / TauS);
-        return (TargetV - StartV) / TauS * (1 - x) + SlopeVPerS * x;
-    }
+    public double SlopeAt(double t) => SlopeFrom(-Accurate.ExpM1(-t / TauS));
+
+    /// <summary>dv/dt where 1 − e^(−t/τ) = <paramref name="x"/>.</summary>
+    private double SlopeFrom(double x) => StartSlope * (1 - x) + SlopeVPerS * x;
+
+    /// <summary>
+    /// dv/dt at the start, (A − v0)/τ, exactly what <see cref="SlopeAt(double)"/> gives at 0 (there x = 0),
+    /// without the call to the exponential.
+    /// </summary>
+    public double StartSlope => (TargetV - StartV) / TauS;
 
     /// <summary>Time of this segment during which the ramp is above <paramref name="thresholdV"/>.</summary>
     public double TimeAbove(double thresholdV)
@@ -77,9 +89,12 @@ internal readonly record struct RampSegment(double StartV, double EndV, double D
         var t = DurationS * (thresholdV - StartV) / (EndV - StartV);
         for (var i = 0; i < 60; i++)
         {
-            var f = sign * (ValueAt(t) - thresholdV);
+            // One exponential per step, shared by the value and the slope.
+            var u = t / TauS;
+            var x = -Accurate.ExpM1(-u);
+            var f = sign * (ValueAt(u, x) - thresholdV);
             if (f > 0) hi = t; else lo = t;
-            var next = t - f / (sign * SlopeAt(t));
+            var next = t - f / (sign * SlopeFrom(x));
             if (!(next > lo && next < hi))
                 next = 0.5 * (lo + hi);
             if (Math.Abs(next - t) <= 1e-15 * DurationS || hi - lo <= 1e-15 * DurationS)

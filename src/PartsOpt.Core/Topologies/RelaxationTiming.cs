@@ -37,8 +37,11 @@ public static class RelaxationTiming
         var swing = levelHigh - levelLow;
         var edge = swing / slewRate;
         var u = edge / rc;
-        var low = edge + rc * SaturatedLog(u, beta, swing, levelHigh, -levelLow);
-        var high = edge + rc * SaturatedLog(u, beta, swing, -levelLow, levelHigh);
+        // Both half periods share u: one e^(−u) for the pair (it dominated the cost of this call).
+        var x = -Accurate.ExpM1(-u);
+        var oneMinusPhi = u == 0 ? 0 : ExcessOverChord(u, x) / u;
+        var low = edge + rc * SaturatedLog(x, oneMinusPhi, beta, swing, levelHigh, -levelLow);
+        var high = edge + rc * SaturatedLog(x, oneMinusPhi, beta, swing, -levelLow, levelHigh);
         return double.IsFinite(low) && double.IsFinite(high) ? (high, low) : (double.NaN, double.NaN);
     }
 
@@ -87,12 +90,11 @@ public static class RelaxationTiming
     /// ln(D/((1−β)·far)) after an edge from the level <paramref name="near"/> (where the trip was, at β·near)
     /// towards the level −<paramref name="far"/>: D = swing·φ(u) − (1−β)·near·e^(−u). Written as
     /// log1p((β·swing − swing·(1 − φ) + (1−β)·near·(1 − e^(−u)))/((1−β)·far)) so short edges and small β keep
-    /// their digits. NaN when the edge cannot complete (the argument is not above 1).
+    /// their digits. NaN when the edge cannot complete (the argument is not above 1). Takes
+    /// x = 1 − e^(−u) and 1 − φ(u), which the caller computes once for both half periods.
     /// </summary>
-    internal static double SaturatedLog(double u, double beta, double swing, double near, double far)
+    internal static double SaturatedLog(double x, double oneMinusPhi, double beta, double swing, double near, double far)
     {
-        var x = -Accurate.ExpM1(-u);
-        var oneMinusPhi = u == 0 ? 0 : ExcessOverChord(u) / u;
         var excess = beta * swing - swing * oneMinusPhi + (1 - beta) * near * x;
         return excess > 0 ? Accurate.Log1P(excess / ((1 - beta) * far)) : double.NaN;
     }
@@ -112,4 +114,11 @@ public static class RelaxationTiming
     /// <summary>u − (1 − e^(−u)) = u + expm1(−u), by its series for small u.</summary>
     internal static double ExcessOverChord(double u) =>
         u < 1e-3 ? u * u * (0.5 - u * (1.0 / 6 - u / 24)) : u + Accurate.ExpM1(-u);
+
+    /// <summary>
+    /// u − (1 − e^(−u)) when the caller already has x = 1 − e^(−u) = −expm1(−u): the same value as
+    /// <see cref="ExcessOverChord(double)"/>, bit for bit, without a second exponential.
+    /// </summary>
+    internal static double ExcessOverChord(double u, double x) =>
+        u < 1e-3 ? u * u * (0.5 - u * (1.0 / 6 - u / 24)) : u - x;
 }

@@ -126,12 +126,12 @@ internal struct Waveform
             w.HighTimeS - edge, w.Ratio * w.LevelHighRel);
         w.CapacitorSwingV = capacitor.MaxV - capacitor.MinV;
         var tau = v.IntRf * v.IntC;
-        w.Ramp = RampPieces.Driven(-v.IntRf / v.IntR, tau, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge, w.HighTimeS - edge);
+        w.Ramp.FillDriven(-v.IntRf / v.IntR, tau, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge, w.HighTimeS - edge);
         w.RampMaxRel = w.Ramp.MaxV;
         w.RampMinRel = w.Ramp.MinV;
         var slopeMax = 0.0;
         for (var i = 0; i < w.Ramp.Count; i++)
-            slopeMax = Math.Max(slopeMax, Math.Abs(w.Ramp[i].SlopeAt(0)));
+            slopeMax = Math.Max(slopeMax, Math.Abs(w.Ramp[i].StartSlope));
         w.IntegratorSlopeMax = slopeMax;
         w.LinearityErrorPercent = 100 * w.Ramp.LinearityError();
         return true;
