@@ -1,3 +1,4 @@
+using MathNet.Numerics.OdeSolvers;
 using PartsOpt.Topologies;
 
 namespace PartsOpt.Tests.Topologies;
@@ -51,7 +52,7 @@ public class IntegratorTests
         var e = CircuitAnalysis.Analyse(TestCircuits.ThreeStage(ri: ri, ci: ci, rf: rf, r2: 6.8e3, amp: amp));
         double high = e.Value(FigureNames.HighTime), low = e.Value(FigureNames.LowTime), lp = 11, lm = -8;
 
-        // Independent path: fourth-order Runge–Kutta on Ci·dv/dt = −vin/Ri − v/Rf, run to steady state.
+        // Independent path: MathNet's fourth-order Runge–Kutta on Ci·dv/dt = −vin/Ri − v/Rf, run to steady state.
         var (max, min, mean) = SimulateIntegrator(lp, lm, high, low, ri, ci, rf);
         Precision.AlmostEqualRelative(max - min, e.Value(FigureNames.TrianglePeakToPeak), 1e-6, "peak-to-peak");
         Precision.AlmostEqualRelative((max + min) / 2, e.Value(FigureNames.TriangleCentre), 1e-5, "centre");
@@ -120,70 +121,53 @@ public class IntegratorTests
 
         foreach (var point in e.DutyCurve)
         {
-            // Independent path: RK4 on the integrator (as above), time above the threshold counted step by step.
+            // Independent path: MathNet's RK4 on the integrator (as above), time above the threshold counted step by step.
             var duty = SimulatedDuty(11.5, -9, high, low, ri, ci, rf, point.ThresholdV);
             Precision.AlmostEqualAbsolute(duty, point.Duty!.Value, 1e-4, $"duty at {point.ThresholdV} V");
         }
     }
 
+    /// <summary>
+    /// Independent path: the lossy integrator Ci·dv/dt = −vin/Ri − v/Rf driven by the square (lp for
+    /// <paramref name="high"/> s, lm for <paramref name="low"/> s), stepped from 0 V by MathNet's fourth-order
+    /// Runge–Kutta (a general-purpose reference library) for <paramref name="periods"/> periods, so that it
+    /// settles; returns the samples of the last period's high and low parts.
+    /// </summary>
+    private static (double[] High, double[] Low) LastPeriod(double lp, double lm, double high, double low,
+        double ri, double ci, double rf, int periods, int stepsPerPart)
+    {
+        double v = 0;
+        double[] highPart = [], lowPart = [];
+        for (var p = 0; p < periods; p++)
+        {
+            highPart = RungeKutta.FourthOrder(v, 0, high, stepsPerPart + 1, (_, x) => (-lp / ri - x / rf) / ci);
+            lowPart = RungeKutta.FourthOrder(highPart[^1], 0, low, stepsPerPart + 1, (_, x) => (-lm / ri - x / rf) / ci);
+            v = lowPart[^1];
+        }
+
+        return (highPart, lowPart);
+    }
+
     private static double SimulatedDuty(double lp, double lm, double high, double low, double ri, double ci, double rf,
         double threshold)
     {
-        const int stepsPerSegment = 20_000, periods = 30;
-        double Slope(double vin, double x) => (-vin / ri - x / rf) / ci;
-        double v = 0, above = 0;
-        for (var p = 0; p < periods; p++)
-        {
-            foreach (var (vin, length) in new[] { (lp, high), (lm, low) })
-            {
-                var dt = length / stepsPerSegment;
-                for (var n = 0; n < stepsPerSegment; n++)
-                {
-                    var k1 = Slope(vin, v);
-                    var k2 = Slope(vin, v + dt / 2 * k1);
-                    var k3 = Slope(vin, v + dt / 2 * k2);
-                    var k4 = Slope(vin, v + dt * k3);
-                    var next = v + dt / 6 * (k1 + 2 * k2 + 2 * k3 + k4);
-                    if (p == periods - 1 && (v + next) / 2 > threshold)
-                        above += dt;
-                    v = next;
-                }
-            }
-        }
-
-        return above / (high + low);
+        const int steps = 20_000;
+        var (highPart, lowPart) = LastPeriod(lp, lm, high, low, ri, ci, rf, periods: 30, steps);
+        // Time above the threshold, step by step (the midpoint of each step decides).
+        double Above(double[] part, double length) =>
+            Enumerable.Range(0, steps).Count(i => (part[i] + part[i + 1]) / 2 > threshold) * (length / steps);
+        return (Above(highPart, high) + Above(lowPart, low)) / (high + low);
     }
 
     private static (double Max, double Min, double Mean) SimulateIntegrator(double lp, double lm, double high, double low,
         double ri, double ci, double rf)
     {
-        const int stepsPerSegment = 10_000, periods = 40;
-        double Slope(double vin, double x) => (-vin / ri - x / rf) / ci;
-        double v = 0, max = double.MinValue, min = double.MaxValue, area = 0;
-        for (var p = 0; p < periods; p++)
-        {
-            foreach (var (vin, length) in new[] { (lp, high), (lm, low) })
-            {
-                var dt = length / stepsPerSegment;
-                for (var n = 0; n < stepsPerSegment; n++)
-                {
-                    var k1 = Slope(vin, v);
-                    var k2 = Slope(vin, v + dt / 2 * k1);
-                    var k3 = Slope(vin, v + dt / 2 * k2);
-                    var k4 = Slope(vin, v + dt * k3);
-                    var next = v + dt / 6 * (k1 + 2 * k2 + 2 * k3 + k4);
-                    if (p == periods - 1)
-                    {
-                        max = Math.Max(max, next);
-                        min = Math.Min(min, next);
-                        area += (v + next) / 2 * dt; // trapezoid rule for the mean
-                    }
-
-                    v = next;
-                }
-            }
-        }
-
-        return (max, min, area / (high + low));
+        const int steps = 10_000;
+        var (highPart, lowPart) = LastPeriod(lp, lm, high, low, ri, ci, rf, periods: 40, steps);
+        // The mean by the trapezoid rule over the period.
+        double Area(double[] part, double length) =>
+            Enumerable.Range(0, steps).Sum(i => (part[i] + part[i + 1]) / 2) * (length / steps);
+        var all = highPart.Concat(lowPart).ToArray();
+        return (all.Max(), all.Min(), (Area(highPart, high) + Area(lowPart, low)) / (high + low));
     }
 }
