@@ -12,7 +12,7 @@ namespace PartsOpt.Api.Security;
 /// <c>Idempotency-Key</c> on POSTs that create something. An endpoint or group opts in with
 /// <see cref="WithIdempotency{TBuilder}"/>. Per API key, the first request with a given key does the work
 /// and its answer (status, Content-Type, Location, body) is stored; the same key with the same request
-/// (method, path, query and body, hashed) gets that answer again with <c>Idempotent-Replayed: true</c>,
+/// (method, path, query and body, hashed) gets that answer again with <c>PartsOpt-Replayed: true</c>,
 /// without the work; with a different request, 422. A duplicate that arrives while the first is still
 /// working waits for it (up to <see cref="WaitLimit"/>, then 409 with Retry-After). A unique index on
 /// (key, Idempotency-Key) makes "only one does the work" hold across requests and instances. Answers of
@@ -22,7 +22,7 @@ namespace PartsOpt.Api.Security;
 public static class Idempotency
 {
     public const string Header = "Idempotency-Key";
-    public const string ReplayedHeader = "Idempotent-Replayed";
+    public const string ReplayedHeader = "PartsOpt-Replayed";
     public const string HoursKey = "Idempotency:Hours";
     public const int MaxKeyLength = 200;
     private static readonly TimeSpan WaitLimit = TimeSpan.FromSeconds(10);

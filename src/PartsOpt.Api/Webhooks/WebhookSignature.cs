@@ -13,7 +13,8 @@ public static class WebhookSignature
     public const string EventTypeHeader = "PartsOpt-Event-Type";
     public const string TimestampHeader = "PartsOpt-Timestamp";
     public const string SignatureHeader = "PartsOpt-Signature";
-    public const string Version = "v1";
+    /// <summary>Names the algorithm in the header value, so a receiver sees what to compute.</summary>
+    public const string Scheme = "hmac-sha256";
 
     public static string Sign(string secret, long unixSeconds, byte[] body)
     {
@@ -22,7 +23,7 @@ public static class WebhookSignature
         prefix.CopyTo(message, 0);
         body.CopyTo(message, prefix.Length);
         var mac = HMACSHA256.HashData(Encoding.UTF8.GetBytes(secret), message);
-        return $"{Version}={Convert.ToHexStringLower(mac)}";
+        return $"{Scheme}={Convert.ToHexStringLower(mac)}";
     }
 
     /// <summary>A new secret: 256 random bits as 64 hex digits.</summary>

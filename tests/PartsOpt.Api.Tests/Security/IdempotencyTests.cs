@@ -31,8 +31,8 @@ public sealed class IdempotencyTests(StockFactory factory) : IClassFixture<Stock
         var again = await _client.SendAsync(Post("/api/v1/parts", body, "create-r-idem-1"));
 
         Assert.Equal(HttpStatusCode.Created, again.StatusCode); // not 409 "taken": the work was not done again
-        Assert.Equal("true", again.Headers.GetValues("Idempotent-Replayed").Single());
-        Assert.False(first.Headers.Contains("Idempotent-Replayed"));
+        Assert.Equal("true", again.Headers.GetValues("PartsOpt-Replayed").Single());
+        Assert.False(first.Headers.Contains("PartsOpt-Replayed"));
         Assert.Equal(first.Headers.Location, again.Headers.Location);
         Assert.Equal(first.Content.Headers.ContentType, again.Content.Headers.ContentType);
         Assert.Equal(await first.Content.ReadAsByteArrayAsync(), await again.Content.ReadAsByteArrayAsync());
@@ -65,7 +65,7 @@ public sealed class IdempotencyTests(StockFactory factory) : IClassFixture<Stock
         Assert.Equal(HttpStatusCode.Created, (await _client.SendAsync(Post("/api/v1/parts/R-IDEM-4/movements", Receipt, "shared"))).StatusCode);
         var theirs = await stores.SendAsync(Post("/api/v1/parts/R-IDEM-4/movements", Receipt, "shared"));
         Assert.Equal(HttpStatusCode.Created, theirs.StatusCode);
-        Assert.False(theirs.Headers.Contains("Idempotent-Replayed"));
+        Assert.False(theirs.Headers.Contains("PartsOpt-Replayed"));
 
         Assert.Equal(HttpStatusCode.Created, (await _client.SendAsync(Post("/api/v1/parts/R-IDEM-4/movements", Receipt, null))).StatusCode);
         Assert.Equal(HttpStatusCode.Created, (await _client.SendAsync(Post("/api/v1/parts/R-IDEM-4/movements", Receipt, null))).StatusCode);
@@ -83,7 +83,7 @@ public sealed class IdempotencyTests(StockFactory factory) : IClassFixture<Stock
         Assert.All(responses, r => Assert.Equal(HttpStatusCode.Created, r.StatusCode));
         var bodies = await Task.WhenAll(responses.Select(r => r.Content.ReadAsStringAsync()));
         Assert.Single(bodies.Distinct());
-        Assert.Equal(11, responses.Count(r => r.Headers.Contains("Idempotent-Replayed")));
+        Assert.Equal(11, responses.Count(r => r.Headers.Contains("PartsOpt-Replayed")));
         Assert.Equal(1, await Rows("R-IDEM-5"));
         Assert.Equal(7, await factory.LedgerSumAsync("R-IDEM-5"));
     }
@@ -97,7 +97,7 @@ public sealed class IdempotencyTests(StockFactory factory) : IClassFixture<Stock
         var again = await _client.SendAsync(new HttpRequestMessage(HttpMethod.Post, "/api/v1/parts/import?dryRun=true")
         { Content = new StringContent(Csv, Encoding.UTF8, "text/csv"), Headers = { { "Idempotency-Key", "imp-1" } } });
         Assert.Equal(first.StatusCode, again.StatusCode);
-        Assert.True(again.Headers.Contains("Idempotent-Replayed"));
+        Assert.True(again.Headers.Contains("PartsOpt-Replayed"));
         var other = await _client.SendAsync(new HttpRequestMessage(HttpMethod.Post, "/api/v1/parts/import?dryRun=false")
         { Content = new StringContent(Csv, Encoding.UTF8, "text/csv"), Headers = { { "Idempotency-Key", "imp-1" } } });
         await other.AssertProblem(HttpStatusCode.UnprocessableEntity); // the query is part of the request

@@ -100,7 +100,7 @@ internal sealed class Receiver : IAsyncDisposable
             || (now - DateTimeOffset.FromUnixTimeSeconds(timestamp)).Duration() > Tolerance)
             return false;
         var signed = Encoding.UTF8.GetBytes(timestampHeader + ".").Concat(body).ToArray();
-        var expected = "v1=" + Convert.ToHexStringLower(HMACSHA256.HashData(Encoding.UTF8.GetBytes(secret), signed));
+        var expected = "hmac-sha256=" + Convert.ToHexStringLower(HMACSHA256.HashData(Encoding.UTF8.GetBytes(secret), signed));
         return CryptographicOperations.FixedTimeEquals(Encoding.ASCII.GetBytes(expected),
             Encoding.ASCII.GetBytes(signatureHeader));
     }
