@@ -43,15 +43,27 @@ public sealed class Stockroom
             .OrderBy(r => r.Part.PartNumber)
             .ToListAsync(ct);
 
+        return From(rows.Select(r => new StockedPart(r.Part, r.OnHand, r.OnHand - r.Reserved)));
+    }
+
+    /// <summary>
+    /// The stock of parts already read with their ledger figures (no database): what the search sees. Parts
+    /// with nothing available are skipped; op-amps whose limits cannot be analysed are left out with a note.
+    /// </summary>
+    public static Stockroom From(IEnumerable<StockedPart> stocked)
+    {
+        ArgumentNullException.ThrowIfNull(stocked);
         var parts = new Dictionary<string, StockedPart>(StringComparer.OrdinalIgnoreCase);
         var passives = new List<StockPart>();
         var opAmps = new List<StockOpAmp>();
         var notes = new List<string>();
-        foreach (var row in rows)
+        foreach (var row in stocked)
         {
+            if (row.Available <= 0)
+                continue;
             var part = row.Part;
-            var available = row.OnHand - row.Reserved;
-            parts[part.PartNumber] = new StockedPart(part, row.OnHand, available);
+            var available = row.Available;
+            parts[part.PartNumber] = row;
             if (part.Kind == PartKind.OpAmp)
             {
                 var spec = PartEngineering.ToOpAmpSpec(part);
