@@ -45,7 +45,9 @@ public static class DesignSearch
 
         // Phase 1: the best design (and its ties) of every variant, each with an even share of the time left.
         // Phase 2: the full list, cheapest variants first, so the K-th design found early bounds the others.
-        var variants = plans.SelectMany(p => p.Variants).ToList();
+        // Cheapest bound first within each topology, so the designs found early let dearer variants be
+        // dropped without a model (their bound passes the cutoff).
+        var variants = plans.SelectMany(p => p.Variants.OrderBy(v => v.LowerBound)).ToList();
         var best = new Dictionary<TopologyKind, long>();
         var finished = new Dictionary<SearchVariant, bool>();
         var firstCost = new Dictionary<SearchVariant, long>();
@@ -55,13 +57,18 @@ public static class DesignSearch
             var remaining = deadline - DateTime.UtcNow;
             if (cancellation.IsCancellationRequested || remaining <= TimeSpan.Zero)
                 return false;
+            var cutoff = Cutoff(found, requirement.MaxResults, best.TryGetValue(variant.Topology, out var topologyBest) ? topologyBest : null);
+            if (cutoff is { } limit && variant.LowerBound * SelectionSolver.ScaleFor(variant.Problem) > limit)
+            {
+                return true; // proved: nothing this variant builds can enter the list
+            }
             // Phase 2 continues phase 1's model: its cuts stay, the designs already accepted are forbidden in it.
             if (!solvers.TryGetValue(variant, out var state))
                 solvers[variant] = state = (new SelectionSolver(variant.Problem), []);
             var run = state.Solver.Run(
                 choice => Verify(variant, choice, yieldCheck, tracker),
                 Math.Max(wanted - state.Accepted.Count, 1),
-                Cutoff(found, requirement.MaxResults, best.TryGetValue(variant.Topology, out var b) ? b : null),
+                cutoff,
                 variant.RoleSlots,
                 DateTime.UtcNow + remaining / Math.Max(left, 1),
                 options.Seed,
@@ -138,7 +145,7 @@ public static class DesignSearch
         {
             tracker.Rejected(variant, choice, judgement);
             var rejection = variant.Rejection(choice, judgement);
-            return rejection.CutGroup is null && rejection.CutSlots is { } scope
+            return rejection is { CutGroup: null, CutEscapeOptions: null, CutSlots: { } scope }
                 ? rejection with { MoreCuts = ScopeSweep.Sweep(variant, choice, scope) }
                 : rejection;
         }

@@ -9,10 +9,11 @@ namespace PartsOpt.Search;
 /// </summary>
 /// <remarks>
 /// Relaxation oscillator: R·C·k(β, L+, L−) + a·2·te ≤ T ≤ R·C·k + b·2·te, te = (L+ − L−)/SR one slewing
-/// edge, k from the unequal-saturation times, a and b the edge multipliers of the exact slewing solution; k depends on the divider pair (and with a single supply on the reference
-/// pair too), so it enters through a tuple group. Loop: T = (r1/r2)·Ri·Ci·g + c with g = (L+ − L−)(1/L+ −
-/// 1/L−) and c the slewing edges and their shift of the ramp: separable in the logs, except that L± move
-/// with a single supply's reference, which then enters through a group over the reference pair.
+/// edge, k from the unequal-saturation times, a and b the edge multipliers of the exact slewing solution;
+/// k depends on the divider's ratio (and with a single supply on the reference too), so it enters through
+/// <see cref="RatioBuckets"/> over ln(r2/r1). Loop: T = (r1/r2)·Ri·Ci·g + c with g = (L+ − L−)(1/L+ − 1/L−)
+/// and c the slewing edges and their shift of the ramp: separable in the logs, except that L± move with a
+/// single supply's reference, which then enters through buckets over ln(bottom/top) of the reference pair.
 /// </remarks>
 internal static class FrequencyRelaxation
 {
@@ -26,10 +27,16 @@ internal static class FrequencyRelaxation
     /// </summary>
     public const double ProvedLowerEdgeMultiplier = 0.5;
 
-    /// <summary>Largest tuple group built; past it the bound is left out (sound, only slower).</summary>
-    public const int MaxTuples = 40_000;
+    /// <summary>
+    /// How far inside a strict limit a bound is drawn, in natural-log units (10 ppm): past the solver's
+    /// rounding slack, so a ratio exactly at the limit (equal values, symmetric levels) is excluded.
+    /// </summary>
+    public const double StrictStep = 1e-5;
 
-    public sealed record Result(IReadOnlyList<TupleGroup> Groups, IReadOnlyList<LogBound> Bounds);
+    /// <summary>Most buckets over the divider ratio; with fewer distinct ratios each bucket holds one and is exact.</summary>
+    public const int MaxBuckets = 256;
+
+    public sealed record Result(IReadOnlyList<RatioBuckets> Buckets, IReadOnlyList<LogBound> Bounds);
 
     public static Result For(SearchVariant variant, IReadOnlyList<SelectionSlot> slots)
     {
@@ -39,7 +46,6 @@ internal static class FrequencyRelaxation
         double periodMin = Math.Max(1 / band.Max, EdgeLimitedPeriod(variant.Prototype)), periodMax = 1 / band.Min;
         var edge = (supply.SpanV - amp.OutputHeadroomHighV - amp.OutputHeadroomLowV) / amp.SlewRateVPerS;
         var levels = new Levels(supply, amp);
-        var groups = new List<TupleGroup>();
         var bounds = new List<LogBound>();
         int Slot(string role) => variant.SlotOf(role);
         double Value(int slot, int option) => ((StockChoice)slots[slot].Options[option].Tag!).Value;
@@ -52,56 +58,52 @@ internal static class FrequencyRelaxation
             ? supply.PositiveV * Value(referenceSlots[1], tuple[1]) / (Value(referenceSlots[0], tuple[0]) + Value(referenceSlots[1], tuple[1]))
             : 0;
 
+        var buckets = new List<RatioBuckets>();
         if (variant.Topology is TopologyKind.ThreeStage or TopologyKind.RcRamp)
         {
             int r1 = Slot(Roles.OscR1), r2 = Slot(Roles.OscR2);
-            var dividerTuples = Pairs(slots[r1].Options.Count, slots[r2].Options.Count);
-            if ((long)dividerTuples.Count * referenceTuples.Count <= MaxTuples)
+            var references = referenceTuples.Select(ReferenceOf).Distinct().Order().ToArray();
+            if (DividerBuckets(slots, r1, r2, references, levels, amp.InputOffsetV) is { } divider)
             {
-                var tuples = new List<int[]>();
-                var logs = new List<double>();
+                buckets.Add(divider.Buckets);
                 // The slewing edges add between a·2·te and b·2·te to R·C·k (RelaxationTiming.EdgeMultipliers).
-                // The largest b of any tuple bounds R·C·k from below; from above, a = 1/2, the proved lower
-                // multiplier, keeps the bound a relaxation whatever the tuple.
-                var upperMultiplier = 1.0;
-                foreach (var d in dividerTuples)
-                    foreach (var r in referenceTuples)
-                    {
-                        var beta = Value(r2, d[1]) / (Value(r1, d[0]) + Value(r2, d[1]));
-                        var reference = ReferenceOf(r);
-                        tuples.Add([.. d, .. r]);
-                        logs.Add(Math.Log(levels.PeriodFactor(beta, reference, amp.InputOffsetV)));
-                        var (_, upper) = RelaxationTiming.EdgeMultipliers(beta, levels.HighRel(reference), levels.LowRel(reference));
-                        if (double.IsFinite(upper))
-                            upperMultiplier = Math.Max(upperMultiplier, upper);
-                    }
-                groups.Add(new TupleGroup([r1, r2, .. referenceSlots], tuples, logs));
+                // The largest b of any stocked divider bounds R·C·k from below; from above, a = 1/2, the proved
+                // lower multiplier, keeps the bound a relaxation whatever the divider.
                 bounds.Add(new LogBound(FigureNames.Frequency,
-                    [new LogTerm(Slot(Roles.OscR), 1), new LogTerm(Slot(Roles.OscC), 1), new LogTerm(0, 1, IsGroup: true)],
-                    LogOrMinusInfinity(periodMin - upperMultiplier * 2 * edge) - Margin,
+                    [new LogTerm(Slot(Roles.OscR), 1), new LogTerm(Slot(Roles.OscC), 1), new LogTerm(0, 1, TermKind.Buckets)],
+                    LogOrMinusInfinity(periodMin - divider.UpperEdgeMultiplier * 2 * edge) - Margin,
                     LogOrMinusInfinity(periodMax - ProvedLowerEdgeMultiplier * 2 * edge) + Margin));
             }
+            else
+                bounds.Add(Impossible(FigureNames.Frequency));
         }
-        else if (referenceTuples.Count <= MaxTuples)
+        else
         {
             // Loop: T = k·τ·g(ref) + c(ref); with a single supply g and c move with the reference pair.
             var gains = new List<double>();
+            var members = new List<(double X, double Low, double High)>();
             double cMin = double.PositiveInfinity, cMax = double.NegativeInfinity;
             foreach (var r in referenceTuples)
             {
                 var (g, c) = levels.LoopFactors(ReferenceOf(r), edge);
                 gains.Add(double.IsFinite(g) && g > 0 ? Math.Log(g) : double.NaN);
                 if (double.IsFinite(g) && g > 0)
+                {
                     (cMin, cMax) = (Math.Min(cMin, c), Math.Max(cMax, c));
+                    if (supply.IsSingle)
+                        members.Add((slots[referenceSlots[1]].Options[r[1]].LogValue - slots[referenceSlots[0]].Options[r[0]].LogValue,
+                            Math.Log(g), Math.Log(g)));
+                }
             }
             var terms = new List<LogTerm>
             {
                 new(Slot(Roles.SchR1), 1), new(Slot(Roles.SchR2), -1), new(Slot(Roles.IntR), 1), new(Slot(Roles.IntC), 1),
             };
-            if (supply.IsSingle)
+            if (supply.IsSingle && members.Count > 0)
             {
-                groups.Add(new TupleGroup(referenceSlots, referenceTuples, gains));
-                terms.Add(new LogTerm(0, 1, IsGroup: true));
+                // g depends on the reference only, and the reference on ln(bottom) − ln(top): bucketed.
+                buckets.Add(Bucketise([new LogTerm(referenceSlots[0], -1), new LogTerm(referenceSlots[1], 1)], members));
+                terms.Add(new LogTerm(0, 1, TermKind.Buckets));
             }
             var gainShift = supply.IsSingle ? 0 : gains[0];
             if (double.IsNaN(gainShift) || double.IsPositiveInfinity(cMin))
@@ -110,6 +112,17 @@ internal static class FrequencyRelaxation
                 bounds.Add(new LogBound(FigureNames.Frequency, terms,
                     LogOrMinusInfinity(periodMin - cMax) - gainShift - Margin,
                     LogOrMinusInfinity(periodMax - cMin) - gainShift + Margin));
+
+            // The engine's switching checks on k = sch.r1/sch.r2, both failures: the Schmitt thresholds −k·L±
+            // inside the swing (k < min(−L−/L+, L+/−L−), never above 1 whatever the reference), and hysteresis
+            // k·(L+ − L−) at least HysteresisOffsets input offsets (L+ − L− does not move with the reference).
+            var levelSwing = levels.HighRel(0) - levels.LowRel(0);
+            var inside = supply.IsSingle ? 1 : Math.Min(-levels.LowRel(0) / levels.HighRel(0), levels.HighRel(0) / -levels.LowRel(0));
+            var hysteresis = CircuitChecks.HysteresisOffsets * amp.InputOffsetV / levelSwing;
+            bounds.Add(new LogBound("oscillator can switch", [new LogTerm(Slot(Roles.SchR1), 1), new LogTerm(Slot(Roles.SchR2), -1)],
+                hysteresis > 0 ? Math.Log(hysteresis) - Margin : double.NegativeInfinity,
+                // Strict: at k = the limit the ramp must reach the integrator's own rail, and no period exists.
+                inside > 0 ? Math.Log(inside) - StrictStep : double.NegativeInfinity));
 
             if (variant.Context.Requirement.TrianglePeakToPeak is { } amplitude && !supply.IsSingle)
             {
@@ -121,7 +134,78 @@ internal static class FrequencyRelaxation
             }
         }
 
-        return new Result(groups, bounds);
+        return new Result(buckets, bounds);
+    }
+
+    /// <summary>
+    /// The relaxation oscillator's period factor k(β, reference) bucketed over the divider ratio
+    /// x = ln(r2) − ln(r1) (β = 1/(1 + e^(−x))). k rises with β for any reference; for a fixed β it is
+    /// symmetric in t = ln((ref − L−)/(L+ − ref)) and grows with |t|, so over the stocked references a pair's
+    /// least k is at the reference nearest t = 0 and its greatest at one of the two extremes (with a dual
+    /// supply there is one reference and the two agree). Pairs that cannot switch even about that most
+    /// favourable reference are left out. Null when no stocked pair lets the oscillator switch.
+    /// </summary>
+    internal static (RatioBuckets Buckets, double UpperEdgeMultiplier)? DividerBuckets(
+        IReadOnlyList<SelectionSlot> slots, int r1, int r2, IReadOnlyList<double> references, Levels levels, double offsetV)
+    {
+        // References where both levels lie on either side: the only ones an oscillator can switch about.
+        var usable = references.Where(r => levels.HighRel(r) > 0 && levels.LowRel(r) < 0).ToArray();
+        if (usable.Length == 0)
+            return null;
+        var centre = usable.MinBy(r => Math.Abs(Math.Log(-levels.LowRel(r) / levels.HighRel(r))));
+        double Factor(double beta, double reference) => Math.Log(levels.PeriodFactor(beta, reference, 0));
+        var members = new List<(double X, double Low, double High)>();
+        var betaMin = 1.0;
+        foreach (var a in slots[r1].Options)
+            foreach (var b in slots[r2].Options)
+            {
+                var x = b.LogValue - a.LogValue;
+                var beta = 1 / (1 + Math.Exp(-x));
+                // The offset condition is most lenient about the centre reference, where min(L+, −L−) is largest.
+                // Hysteresis β·(L+ − L−) below HysteresisOffsets input offsets fails the engine's check too.
+                if (!double.IsFinite(levels.PeriodFactor(beta, centre, offsetV))
+                    || beta * (levels.HighRel(centre) - levels.LowRel(centre)) < CircuitChecks.HysteresisOffsets * offsetV * (1 - 1e-9))
+                    continue;
+                members.Add((x, Factor(beta, centre), Math.Max(Factor(beta, usable[0]), Factor(beta, usable[^1]))));
+                betaMin = Math.Min(betaMin, beta);
+            }
+        if (members.Count == 0)
+            return null;
+        // The edge multiplier b falls as β rises and, for a fixed β, is greatest at an extreme reference.
+        var upper = new[] { usable[0], usable[^1], centre }
+            .Select(r => RelaxationTiming.EdgeMultipliers(betaMin, levels.HighRel(r), levels.LowRel(r)).Upper)
+            .Where(double.IsFinite)
+            .Append(1.0)
+            .Max();
+        return (Bucketise([new LogTerm(r1, -1), new LogTerm(r2, 1)], members), upper);
+    }
+
+    /// <summary>
+    /// Sorts members by their ratio and cuts them into at most <see cref="MaxBuckets"/> buckets of equal count
+    /// (equal ratios never split), each bucket bounded by the least and greatest factor of its members. With
+    /// no more distinct ratios than buckets, each bucket holds one ratio and the bounds are exact.
+    /// </summary>
+    internal static RatioBuckets Bucketise(IReadOnlyList<LogTerm> ratio, List<(double X, double Low, double High)> members)
+    {
+        members.Sort((p, q) => p.X.CompareTo(q.X));
+        var edges = new List<(double Low, double High)>();
+        var low = new List<double>();
+        var high = new List<double>();
+        var per = (members.Count + MaxBuckets - 1) / MaxBuckets;
+        for (var i = 0; i < members.Count;)
+        {
+            var j = Math.Min(i + per, members.Count) - 1;
+            while (j + 1 < members.Count && members[j + 1].X == members[j].X)
+                j++;
+            edges.Add((members[i].X, members[j].X));
+            double least = double.PositiveInfinity, greatest = double.NegativeInfinity;
+            for (var k = i; k <= j; k++)
+                (least, greatest) = (Math.Min(least, members[k].Low), Math.Max(greatest, members[k].High));
+            low.Add(least);
+            high.Add(greatest);
+            i = j + 1;
+        }
+        return new RatioBuckets(ratio, edges, low, high);
     }
 
     /// <summary>

@@ -48,7 +48,8 @@ internal static class ScopeSweep
                 if (!judgement.Accepted)
                 {
                     var rejection = variant.Rejection(trial, judgement);
-                    if (rejection.CutGroup is null && rejection.CutSlots is { } slots && slots.All(scope.Contains))
+                    // A cut with an escape depends on slots outside its own: not a plain no-good on the scope.
+                    if (rejection is { CutGroup: null, CutEscapeOptions: null, CutSlots: { } slots } && slots.All(scope.Contains))
                         cuts.Add(((int[])trial.Clone(), slots));
                 }
             }

@@ -44,7 +44,7 @@ internal sealed class SearchVariant
                 .Select(i => new SlotOption([new PartDraw(i, Packages)], 0, i)).ToList()));
 
         var relaxation = FrequencyRelaxation.For(this, slots);
-        var groups = relaxation.Groups.ToList();
+        var groups = new List<TupleGroup>();
         if (ThresholdDivider.For(this, slots) is { } divider)
         {
             Thresholds = divider;
@@ -57,11 +57,35 @@ internal sealed class SearchVariant
             Slots = slots,
             FixedDraws = fixedDraws,
             Groups = groups,
+            Buckets = relaxation.Buckets,
             Bounds = relaxation.Bounds,
             BuildQuantity = requirement.BuildQuantity,
             Costs = requirement.Costs,
         };
     }
+
+    /// <summary>
+    /// A lower bound on the total build cost of any design of this variant: its op-amp packages, the cheapest
+    /// option of every slot, and one line item per kind of part its roles take (the decoupling capacitors
+    /// may share the capacitor line). A variant whose bound passes the list's cutoff cannot enter the list.
+    /// </summary>
+    public decimal LowerBound
+    {
+        get
+        {
+            var quantity = Problem.BuildQuantity;
+            var costs = Problem.Costs;
+            decimal Draws(IEnumerable<PartDraw> draws) =>
+                draws.Sum(d => d.PerBoard * quantity * (Problem.Lines[d.Line].UnitCost + costs.PlacementCost));
+            var kinds = RoleNames.Select(Roles.KindOf).Distinct().Count();
+            var lines = FixedDraws().Select(d => d.Line).Distinct().Count() + kinds;
+            return Draws(FixedDraws())
+                + Problem.Slots.Sum(slot => slot.Options.Count == 0 ? 0 : slot.Options.Min(o => Draws(o.Draws)))
+                + lines * costs.LineItemSetupCost;
+        }
+    }
+
+    private IReadOnlyList<PartDraw> FixedDraws() => Problem.FixedDraws;
 
     public SearchContext Context { get; }
     public TopologyKind Topology { get; }
@@ -189,7 +213,7 @@ internal sealed class SearchVariant
         if (Prototype.DutyControl is ControlVoltageDuty)
             return verdict with { CutSlots = ramp };
         if (Thresholds is null || ThresholdGroup is null)
-            return verdict;
+            return DividerEscape(choice, judgement) is { } options ? verdict with { CutSlots = ramp, CutEscapeOptions = options } : verdict;
         var escape = Thresholds.Escape(choice, judgement.MissesLowDuty, judgement.MissesHighDuty);
         return verdict with { CutSlots = ramp, CutGroup = ThresholdGroup, CutEscape = escape };
     }
@@ -219,6 +243,45 @@ internal sealed class SearchVariant
             return (Slots(roles), slot, better);
         }
         return null;
+    }
+
+    /// <summary>
+    /// Without a divider group: the divider options that reach further than the failed one, value by value.
+    /// The top threshold (rb + pot)/Σ rises with rb and pot and falls with ra; the bottom rb/Σ rises with rb
+    /// and falls with ra and pot. A missed low duty needs a higher top (smaller ra, larger pot or rb), a
+    /// missed high duty a lower bottom (larger ra or pot, smaller rb); a divider offering neither reaches no
+    /// further and fails the same way with the same ramp. Null without a potentiometer divider.
+    /// </summary>
+    private List<(int Slot, int Option)>? DividerEscape(int[] choice, DesignJudgement judgement)
+    {
+        int ra = SlotOf(Roles.CmpRa), pot = SlotOf(Roles.CmpPot), rb = SlotOf(Roles.CmpRb);
+        if (ra < 0 || pot < 0 || rb < 0 || Prototype.DutyControl is ControlVoltageDuty)
+            return null;
+        var escape = new List<(int Slot, int Option)>();
+        void Add(int slot, bool larger)
+        {
+            var options = Problem.Slots[slot].Options;
+            var current = ((StockChoice)options[choice[slot]].Tag!).Value;
+            for (var o = 0; o < options.Count; o++)
+            {
+                var value = ((StockChoice)options[o].Tag!).Value;
+                if (larger ? value > current : value < current)
+                    escape.Add((slot, o));
+            }
+        }
+        if (judgement.MissesLowDuty)
+        {
+            Add(ra, larger: false);
+            Add(pot, larger: true);
+            Add(rb, larger: true);
+        }
+        if (judgement.MissesHighDuty)
+        {
+            Add(ra, larger: true);
+            Add(pot, larger: true);
+            Add(rb, larger: false);
+        }
+        return escape.Distinct().ToList();
     }
 
     /// <summary>True when the ramp alone leaves the comparator's input range (so any threshold fails too).</summary>

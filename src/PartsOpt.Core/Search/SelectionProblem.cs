@@ -35,11 +35,38 @@ internal sealed record SelectionSlot(string Name, IReadOnlyList<SlotOption> Opti
 /// <param name="LogValues">ln of the figure factor each tuple gives; NaN for a tuple that cannot work.</param>
 internal sealed record TupleGroup(IReadOnlyList<int> Slots, IReadOnlyList<int[]> Tuples, IReadOnlyList<double> LogValues);
 
-/// <summary>A term of a log-space bound: coefficient times the log value of a slot's or group's choice.</summary>
-/// <param name="Index">The slot or group index.</param>
+/// <summary>What a <see cref="LogTerm"/> reads: a slot's value, a tuple group's factor or a bucketed ratio's factor.</summary>
+internal enum TermKind
+{
+    /// <summary>ln of the value of the option chosen in a slot.</summary>
+    Slot,
+
+    /// <summary>ln of the factor of the tuple chosen in a <see cref="TupleGroup"/>.</summary>
+    Group,
+
+    /// <summary>ln of the factor of a <see cref="RatioBuckets"/>, between its bucket's low and high edges.</summary>
+    Buckets,
+}
+
+/// <summary>A term of a log-space bound: coefficient times the log value of a slot's, group's or buckets' choice.</summary>
+/// <param name="Index">The slot, group or buckets index.</param>
 /// <param name="Coefficient">Integer coefficient (±1 for a product or quotient of values).</param>
-/// <param name="IsGroup">True when <paramref name="Index"/> names a tuple group, false for a slot.</param>
-internal readonly record struct LogTerm(int Index, int Coefficient, bool IsGroup = false);
+/// <param name="Kind">What <paramref name="Index"/> names.</param>
+internal readonly record struct LogTerm(int Index, int Coefficient, TermKind Kind = TermKind.Slot);
+
+/// <summary>
+/// A factor that depends on a ratio of part values (a divider's β), bounded bucket by bucket: the ratio's
+/// log, Σ coefficient·ln(value) over <paramref name="Ratio"/>, falls in exactly one bucket, and inside bucket j
+/// the factor's log lies in [<paramref name="Low"/>[j], <paramref name="High"/>[j]] — the least and greatest
+/// factor of the stocked pairs whose ratio falls there, so the bounds hold for every stocked pair. A few
+/// hundred bucket literals stand in for a tuple per pair (tens of thousands on a real stockroom).
+/// </summary>
+/// <param name="Ratio">Slot terms whose sum is the ratio's log.</param>
+/// <param name="Edges">Bucket j spans [Edges[j].Low, Edges[j].High] of the ratio's log (natural log units).</param>
+/// <param name="Low">Least ln factor in each bucket.</param>
+/// <param name="High">Greatest ln factor in each bucket.</param>
+internal sealed record RatioBuckets(
+    IReadOnlyList<LogTerm> Ratio, IReadOnlyList<(double Low, double High)> Edges, IReadOnlyList<double> Low, IReadOnlyList<double> High);
 
 /// <summary>
 /// A linear bound in log space, Lower ≤ Σ coefficient·ln(value) ≤ Upper, already widened by the caller so
@@ -58,6 +85,7 @@ internal sealed class SelectionProblem
     public required IReadOnlyList<SelectionSlot> Slots { get; init; }
     public IReadOnlyList<PartDraw> FixedDraws { get; init; } = [];
     public IReadOnlyList<TupleGroup> Groups { get; init; } = [];
+    public IReadOnlyList<RatioBuckets> Buckets { get; init; } = [];
     public IReadOnlyList<LogBound> Bounds { get; init; } = [];
     public required int BuildQuantity { get; init; }
     public required CostModel Costs { get; init; }

@@ -35,6 +35,7 @@ internal sealed class SelectionSolver
         constantObjective = problem.FixedDraws.Sum(d => problem.BuildQuantity * DrawObjective(d));
 
         AddGroups();
+        AddBuckets();
         AddStock();
         var lineUsed = AddLineItems();
         AddBounds();
@@ -91,7 +92,7 @@ internal sealed class SelectionSolver
             var solver = new CpSolver
             {
                 StringParameters = string.Create(System.Globalization.CultureInfo.InvariantCulture,
-                    $"max_time_in_seconds:{remaining:0.###}, num_workers:2, random_seed:{seed}{ExtraParameters}"),
+                    $"max_time_in_seconds:{remaining:0.###}, num_workers:1, random_seed:{seed}{ExtraParameters}"),
             };
             CpSolverStatus status;
             using (cancellation.Register(solver.StopSearch))
@@ -129,6 +130,9 @@ internal sealed class SelectionSolver
                 var slots = verdict.CutSlots ?? Enumerable.Range(0, chosen.Length).ToArray();
                 if (verdict is { CutGroup: { } group, CutEscape: { } escape })
                     model.AddBoolOr(slots.Select(s => chosen[s][choice[s]].Not()).Concat(escape.Select(k => (ILiteral)groupVars[group][k])));
+                else if (verdict is { CutEscapeOptions: { } options })
+                    model.AddBoolOr(slots.Select(s => chosen[s][choice[s]].Not())
+                        .Concat(options.Select(o => (ILiteral)chosen[o.Slot][o.Option])));
                 else if (verdict is { CutEscapeSlot: { } slot, CutEscape: { } better })
                     model.AddBoolOr(slots.Where(s => s != slot).Select(s => chosen[s][choice[s]].Not())
                         .Concat(better.Select(o => (ILiteral)chosen[slot][o])));
@@ -219,31 +223,93 @@ internal sealed class SelectionSolver
         return used;
     }
 
+    /// <summary>
+    /// One literal per bucket, exactly one true; a true bucket holds the ratio's scaled log inside its edges,
+    /// widened outward by one step per rounded term.
+    /// </summary>
+    private void AddBuckets()
+    {
+        foreach (var buckets in problem.Buckets)
+        {
+            var ratio = LinearExpr.NewBuilder();
+            foreach (var term in buckets.Ratio)
+                AddScaledLogs(ratio, term, term.Coefficient);
+            var slack = buckets.Ratio.Count;
+            var literals = buckets.Edges.Select((_, j) => model.NewBoolVar($"b_{j}")).ToArray();
+            model.AddExactlyOne(literals);
+            for (var j = 0; j < literals.Length; j++)
+            {
+                model.Add(ratio >= (long)Math.Floor(buckets.Edges[j].Low * LogScale) - slack).OnlyEnforceIf(literals[j]);
+                model.Add(ratio <= (long)Math.Ceiling(buckets.Edges[j].High * LogScale) + slack).OnlyEnforceIf(literals[j]);
+            }
+            bucketVars.Add(literals);
+        }
+    }
+
+    private readonly List<BoolVar[]> bucketVars = [];
+
+    private void AddScaledLogs(LinearExprBuilder sum, LogTerm term, int coefficient)
+    {
+        var vars = chosen[term.Index];
+        var options = problem.Slots[term.Index].Options;
+        for (var i = 0; i < vars.Length; i++)
+            if (!double.IsNaN(options[i].LogValue))
+                sum.AddTerm(vars[i], coefficient * (long)Math.Round(options[i].LogValue * LogScale));
+    }
+
+    /// <summary>
+    /// Each bound as one linear constraint, or, when it reads a bucketed factor, as two: the upper edge with
+    /// each bucket's least factor, the lower edge with its greatest (so every stocked pair still satisfies it).
+    /// </summary>
     private void AddBounds()
     {
         foreach (var bound in problem.Bounds)
         {
-            var sum = LinearExpr.NewBuilder();
-            foreach (var term in bound.Terms)
-            {
-                var (vars, logs) = term.IsGroup
-                    ? (groupVars[term.Index], problem.Groups[term.Index].LogValues)
-                    : (chosen[term.Index], problem.Slots[term.Index].Options.Select(o => o.LogValue).ToArray());
-                for (var i = 0; i < vars.Length; i++)
-                    if (!double.IsNaN(logs[i]))
-                        sum.AddTerm(vars[i], term.Coefficient * (long)Math.Round(logs[i] * LogScale));
-            }
-            // Each rounded term is within half a step: widen by one step per term, outward.
             if (double.IsNegativeInfinity(bound.Upper) || bound.Lower > bound.Upper)
             {
                 model.AddBoolOr([]); // no value can meet this bound: the variant has no design
                 continue;
             }
+            // Each rounded term is within half a step: widen by one step per term, outward.
             var slack = bound.Terms.Count;
             var lower = double.IsNegativeInfinity(bound.Lower) ? long.MinValue / 4 : (long)Math.Floor(bound.Lower * LogScale) - slack;
             var upper = double.IsPositiveInfinity(bound.Upper) ? long.MaxValue / 4 : (long)Math.Ceiling(bound.Upper * LogScale) + slack;
-            model.AddLinearConstraint(sum, lower, upper);
+            if (bound.Terms.All(t => t.Kind != TermKind.Buckets))
+            {
+                model.AddLinearConstraint(Sum(bound, useHigh: false), lower, upper);
+                continue;
+            }
+            model.AddLinearConstraint(Sum(bound, useHigh: false), long.MinValue / 4, upper);
+            model.AddLinearConstraint(Sum(bound, useHigh: true), lower, long.MaxValue / 4);
         }
+    }
+
+    private LinearExprBuilder Sum(LogBound bound, bool useHigh)
+    {
+        var sum = LinearExpr.NewBuilder();
+        foreach (var term in bound.Terms)
+        {
+            switch (term.Kind)
+            {
+                case TermKind.Slot:
+                    AddScaledLogs(sum, term, term.Coefficient);
+                    break;
+                case TermKind.Group:
+                    var logs = problem.Groups[term.Index].LogValues;
+                    for (var i = 0; i < logs.Count; i++)
+                        if (!double.IsNaN(logs[i]))
+                            sum.AddTerm(groupVars[term.Index][i], term.Coefficient * (long)Math.Round(logs[i] * LogScale));
+                    break;
+                case TermKind.Buckets:
+                    var buckets = problem.Buckets[term.Index];
+                    // A positive coefficient takes the low factor into the upper edge; a negative one the high.
+                    var edge = useHigh == term.Coefficient > 0 ? buckets.High : buckets.Low;
+                    for (var j = 0; j < edge.Count; j++)
+                        sum.AddTerm(bucketVars[term.Index][j], term.Coefficient * (long)Math.Round(edge[j] * LogScale));
+                    break;
+            }
+        }
+        return sum;
     }
 
     private long OptionObjective(SlotOption option) =>
@@ -255,7 +321,7 @@ internal sealed class SelectionSolver
     private long Scaled(decimal amount) => checked((long)(amount * CostScale));
 
     /// <summary>The smallest power of ten (up to 10^8) that makes every cost in the problem a whole number.</summary>
-    private static long ScaleFor(SelectionProblem problem)
+    internal static long ScaleFor(SelectionProblem problem)
     {
         var amounts = problem.Lines.Select(l => l.UnitCost)
             .Append(problem.Costs.PlacementCost).Append(problem.Costs.LineItemSetupCost);

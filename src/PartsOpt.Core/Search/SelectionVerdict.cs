@@ -36,6 +36,13 @@ internal sealed record SelectionVerdict(
     public int? CutEscapeSlot { get; init; }
 
     /// <summary>
+    /// Options of slots outside <see cref="CutSlots"/> that lift the cut: "not these choices in
+    /// <see cref="CutSlots"/>, unless one of these options is chosen". A duty range missed with a threshold
+    /// divider too large for a tuple group: every divider no better in each of its three values fails too.
+    /// </summary>
+    public IReadOnlyList<(int Slot, int Option)>? CutEscapeOptions { get; init; }
+
+    /// <summary>
     /// Further no-good cuts the verifier found while it was at it (other assignments of the same slots it
     /// judged and rejected for a reason confined to those slots): each forbids its choices in its slots.
     /// </summary>

@@ -19,6 +19,9 @@ internal sealed class ThresholdDivider
         (this.low, this.high) = (low, high);
     }
 
+    /// <summary>Largest tuple group built; past it the group is left out (sound, only slower).</summary>
+    public const int MaxTuples = 40_000;
+
     public TupleGroup Group { get; }
 
     /// <summary>The divider's group, or null when the duty is set by a control voltage or the group would be too large.</summary>
@@ -28,7 +31,7 @@ internal sealed class ThresholdDivider
         if (ra < 0 || pot < 0 || rb < 0)
             return null;
         int na = slots[ra].Options.Count, np = slots[pot].Options.Count, nb = slots[rb].Options.Count;
-        if ((long)na * np * nb > FrequencyRelaxation.MaxTuples)
+        if ((long)na * np * nb > MaxTuples)
             return null;
         double Value(int slot, int option) => ((StockChoice)slots[slot].Options[option].Tag!).Value;
         var supply = variant.Prototype.Supply;

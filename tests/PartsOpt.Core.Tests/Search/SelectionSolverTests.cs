@@ -139,7 +139,7 @@ public class SelectionSolverTests
             Lines = [new("A", 0.01m, 100), new("B", 0.01m, 100)],
             Slots = [new("osc.r1", [Use(0), Use(1)]), new("osc.r2", [Use(0), Use(1)])],
             Groups = [new TupleGroup([0, 1], [[0, 0], [0, 1], [1, 0], [1, 1]], [Math.Log(5), Math.Log(2), Math.Log(5), double.NaN])],
-            Bounds = [new("frequency", [new LogTerm(0, 1, IsGroup: true)], Math.Log(1.5), Math.Log(3))],
+            Bounds = [new("frequency", [new LogTerm(0, 1, TermKind.Group)], Math.Log(1.5), Math.Log(3))],
             BuildQuantity = 1,
             Costs = new CostModel(0, 0),
         };

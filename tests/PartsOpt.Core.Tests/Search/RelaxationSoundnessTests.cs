@@ -1,0 +1,159 @@
+using PartsOpt.Search;
+using PartsOpt.Topologies;
+using PartsOpt.Values;
+
+namespace PartsOpt.Tests.Search;
+
+/// <summary>
+/// The search's model may only ever be looser than the exact engine: every bound, bucket and cut is checked
+/// here against the engine's own closed forms (the relaxation oscillator period, REFERENCE.md) and its
+/// judgement, on stockrooms large enough to take the paths small test stocks never reach.
+/// </summary>
+public class RelaxationSoundnessTests
+{
+    // IEC 60063 E24 mantissas.
+    private static readonly double[] E24 =
+        [1.0, 1.1, 1.2, 1.3, 1.5, 1.6, 1.8, 2.0, 2.2, 2.4, 2.7, 3.0, 3.3, 3.6, 3.9, 4.3, 4.7, 5.1, 5.6, 6.2, 6.8, 7.5, 8.2, 9.1];
+
+    private static readonly double[] PotValues = [1e3, 2e3, 5e3, 10e3, 20e3, 50e3, 100e3, 200e3, 500e3];
+
+    private static IEnumerable<double> E24Between(int fromDecade, int toDecade) =>
+        Enumerable.Range(fromDecade, toDecade - fromDecade).SelectMany(d => E24.Select(m => m * Math.Pow(10, d)));
+
+    [Theory]
+    [InlineData(false)]
+    [InlineData(true)]
+    public void Every_stocked_divider_pair_lies_inside_its_bucket(bool singleSupply)
+    {
+        var values = E24Between(2, 7).ToArray(); // 100 Ω … 9.1 MΩ: 120 values, 14,400 pairs
+        var slot = new SelectionSlot("r", values.Select(v => new SlotOption([], Math.Log(v))).ToList());
+        var supply = singleSupply ? Supply.SingleRail(12) : Supply.Symmetric(12);
+        var amp = TestStock.QuadJfet;
+        var levels = new FrequencyRelaxation.Levels(supply, amp);
+        // Single supply: the references a stocked pair gives, 12 V · bottom / (top + bottom).
+        var references = singleSupply
+            ? values.SelectMany(top => values.Select(bottom => 12 * bottom / (top + bottom))).Distinct().Order().ToArray()
+            : [0.0];
+
+        var (buckets, upperMultiplier) = FrequencyRelaxation.DividerBuckets([slot, slot], 0, 1, references, levels, amp.InputOffsetV)!.Value;
+
+        Assert.True(buckets.Edges.Count <= FrequencyRelaxation.MaxBuckets);
+        var checkedPairs = 0;
+        var sampled = new Random(7);
+        foreach (var r1 in values)
+            foreach (var r2 in values)
+            {
+                var beta = r2 / (r1 + r2);
+                var x = Math.Log(r2) - Math.Log(r1);
+                var bucket = Enumerable.Range(0, buckets.Edges.Count)
+                    .FirstOrDefault(j => buckets.Edges[j].Low <= x + 1e-12 && x - 1e-12 <= buckets.Edges[j].High, -1);
+                // Every reference for a dual supply; a seeded sample of them for a single one.
+                foreach (var reference in singleSupply ? references.Where(_ => sampled.Next(200) == 0) : references)
+                {
+                    var k = levels.PeriodFactor(beta, reference, amp.InputOffsetV);
+                    if (!double.IsFinite(k) || beta * (levels.HighRel(reference) - levels.LowRel(reference)) < CircuitChecks.HysteresisOffsets * amp.InputOffsetV)
+                        continue; // the engine rejects this pair about this reference: the model need not admit it
+                    Assert.True(bucket >= 0, $"pair {r1}/{r2} (x = {x}) is in no bucket");
+                    Assert.InRange(Math.Log(k), buckets.Low[bucket] - 1e-12, buckets.High[bucket] + 1e-12);
+                    var (_, upper) = RelaxationTiming.EdgeMultipliers(beta, levels.HighRel(reference), levels.LowRel(reference));
+                    Assert.True(upper <= upperMultiplier + 1e-12, $"edge multiplier {upper} above the bound {upperMultiplier}");
+                    checkedPairs++;
+                }
+            }
+        Assert.True(checkedPairs > 10_000, $"only {checkedPairs} pairs checked");
+    }
+
+    [Fact]
+    public void Buckets_are_exact_when_there_are_fewer_ratios_than_buckets()
+    {
+        var members = new List<(double X, double Low, double High)> { (0.5, 1, 1), (-0.2, 3, 3), (0.5, 1, 1), (0.1, 2, 2.5) };
+
+        var buckets = FrequencyRelaxation.Bucketise([new LogTerm(0, -1), new LogTerm(1, 1)], members);
+
+        Assert.Equal([(-0.2, -0.2), (0.1, 0.1), (0.5, 0.5)], buckets.Edges);
+        Assert.Equal([3.0, 2.0, 1.0], buckets.Low);
+        Assert.Equal([3.0, 2.5, 1.0], buckets.High);
+    }
+
+    /// <summary>
+    /// A stockroom whose threshold divider is too large for a tuple group (73 resistors × 9 pots × 73),
+    /// so a missed duty range is cut value by value. Every divider the cut leaves out is judged by the
+    /// engine with the same ramp: each must miss the same end of the range.
+    /// </summary>
+    [Fact]
+    public void A_duty_cut_without_a_divider_group_only_removes_dividers_that_fail_too()
+    {
+        var parts = E24Between(3, 6).Append(1e6)
+            .Select((v, i) => TestStock.Resistor($"R{i:000}", v, 0.01m)).ToList();
+        parts.Add(TestStock.Capacitor("C-1N0", 1e-9, 0.05m));
+        parts.Add(TestStock.Capacitor("C-4N7", 4.7e-9, 0.05m));
+        parts.AddRange(PotValues.Select((v, i) => TestStock.Pot($"P{i}", v, 0.4m)));
+        var stock = new Stock(parts, [TestStock.OpAmp("TL074", TestStock.QuadJfet, 0.35m)]);
+        var requirement = TestStock.PwmAt20Kilohertz(TopologyKind.ThreeStage) with { Frequency = new Band(2000, 0.1) };
+        var variant = new SearchVariant(new SearchContext(requirement, stock), TopologyKind.ThreeStage, 0, null, false);
+        Assert.Null(variant.Thresholds);
+
+        int Option(string role, double value) => Enumerable.Range(0, variant.Problem.Slots[variant.SlotOf(role)].Options.Count)
+            .Single(o => ((StockChoice)variant.Problem.Slots[variant.SlotOf(role)].Options[o].Tag!).Value == value);
+        var choice = new int[variant.Problem.Slots.Count];
+        // Oscillator about 2 kHz (1/(2·R·C·ln 3) with equal divider resistors), a ramp of about a volt.
+        choice[variant.SlotOf(Roles.OscR)] = Option(Roles.OscR, 47e3);
+        choice[variant.SlotOf(Roles.OscC)] = Option(Roles.OscC, 4.7e-9);
+        choice[variant.SlotOf(Roles.OscR1)] = Option(Roles.OscR1, 10e3);
+        choice[variant.SlotOf(Roles.OscR2)] = Option(Roles.OscR2, 10e3);
+        choice[variant.SlotOf(Roles.IntR)] = Option(Roles.IntR, 470e3);
+        choice[variant.SlotOf(Roles.IntC)] = Option(Roles.IntC, 4.7e-9);
+        choice[variant.SlotOf(Roles.IntRf)] = Option(Roles.IntRf, 1e6);
+        // A divider whose thresholds (−1.57 … −0.52 V) sit below the ramp's top: one end of the range is missed.
+        choice[variant.SlotOf(Roles.CmpRa)] = Option(Roles.CmpRa, 120e3);
+        choice[variant.SlotOf(Roles.CmpPot)] = Option(Roles.CmpPot, 10e3);
+        choice[variant.SlotOf(Roles.CmpRb)] = Option(Roles.CmpRb, 100e3);
+
+        var judgement = DesignJudge.Judge(requirement, variant.DesignOf(choice));
+        Assert.True(judgement.Missed.Contains(MissedTarget.DutyRange), string.Join("; ", judgement.Reasons));
+        var verdict = variant.Rejection(choice, judgement);
+        Assert.NotNull(verdict.CutEscapeOptions);
+        Assert.DoesNotContain(variant.SlotOf(Roles.CmpRa), verdict.CutSlots!);
+
+        var divider = new[] { Roles.CmpRa, Roles.CmpPot, Roles.CmpRb }.Select(variant.SlotOf).ToArray();
+        var escape = verdict.CutEscapeOptions!.ToHashSet();
+        var random = new Random(11);
+        var judged = 0;
+        for (var trial = 0; trial < 3000 && judged < 150; trial++)
+        {
+            var other = (int[])choice.Clone();
+            foreach (var slot in divider)
+                other[slot] = random.Next(variant.Problem.Slots[slot].Options.Count);
+            if (divider.Any(slot => escape.Contains((slot, other[slot]))))
+                continue; // the cut lets this divider through
+            var cut = DesignJudge.Judge(requirement, variant.DesignOf(other));
+            Assert.False(cut.Accepted, "the cut removed a divider the engine accepts");
+            if (judgement.MissesLowDuty)
+                Assert.True(cut.MissesLowDuty);
+            if (judgement.MissesHighDuty)
+                Assert.True(cut.MissesHighDuty);
+            judged++;
+        }
+        Assert.True(judged >= 20, $"only {judged} cut dividers judged");
+    }
+
+    [Fact]
+    public void No_assignment_costs_less_than_its_variants_lower_bound()
+    {
+        var requirement = TestStock.PwmAt20Kilohertz();
+        var context = new SearchContext(requirement, TestStock.Stockroom());
+        var random = new Random(3);
+        var variants = Enum.GetValues<TopologyKind>().SelectMany(t => VariantPlanner.Plan(context, t).Variants).ToList();
+        Assert.NotEmpty(variants);
+        foreach (var variant in variants)
+        {
+            var slots = variant.Problem.Slots;
+            for (var trial = 0; trial < 300; trial++)
+            {
+                var choice = slots.Select(s => random.Next(s.Options.Count)).ToArray();
+                Assert.True(variant.Problem.CostOf(choice).TotalBuildCost >= variant.LowerBound,
+                    $"{variant.Describe()}: {variant.Problem.CostOf(choice).TotalBuildCost} below {variant.LowerBound}");
+            }
+        }
+    }
+}
