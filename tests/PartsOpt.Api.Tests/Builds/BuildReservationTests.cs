@@ -128,6 +128,12 @@ public sealed class BuildReservationTests(DesignedStock stock)
     [InlineData("""{"designId":1,"quantity":1.5,"reference":"WO"}""", "quantity")]
     [InlineData("""{"designId":1,"quantity":1,"reference":"WO",""", "$")]
     [InlineData("""[1,2]""", "$")]
+    [InlineData("""{"designId":1,"quantity":2147483648,"reference":"WO"}""", "quantity")]
+    [InlineData("""{"designId":1,"quantity":1e400,"reference":"WO"}""", "quantity")]
+    [InlineData("""{"designId":null,"quantity":1,"reference":"WO"}""", "designId")]
+    [InlineData("""{"designId":"1; DROP TABLE Builds","quantity":1,"reference":"WO"}""", "designId")]
+    [InlineData("""{"designId":1,"quantity":1,"reference":123}""", "reference")]
+    [InlineData("""{"designId":1,"quantity":1,"reference":"WO","note":{"deep":[[[]]]}}""", "note")]
     public async Task A_bad_request_is_400_naming_the_field(string body, string field)
     {
         using var factory = stock.NewService();
