@@ -107,6 +107,34 @@ public sealed class BuildReservationTests(DesignedStock stock)
     }
 
     [Fact]
+    public async Task A_retry_with_the_same_IdempotencyKey_reserves_once()
+    {
+        using var factory = stock.NewService();
+        var client = factory.CreateClient();
+        HttpRequestMessage Request()
+        {
+            var request = new HttpRequestMessage(HttpMethod.Post, "/api/v1/builds")
+            {
+                Content = JsonContent.Create(new { designId = stock.DesignId, quantity = 2, reference = "WO-RETRY" }),
+            };
+            request.Headers.Add(PartsOpt.Api.Security.Idempotency.Header, "3f0c1c2e-build-retry");
+            return request;
+        }
+
+        var first = await client.SendAsync(Request());
+        Assert.Equal(HttpStatusCode.Created, first.StatusCode);
+        var rows = await factory.LedgerRows();
+        var second = await client.SendAsync(Request());
+
+        Assert.Equal(HttpStatusCode.Created, second.StatusCode);
+        Assert.Equal("true", second.Headers.GetValues(PartsOpt.Api.Security.Idempotency.ReplayedHeader).Single());
+        Assert.Equal(await first.Content.ReadAsStringAsync(), await second.Content.ReadAsStringAsync());
+        Assert.Equal(rows, await factory.LedgerRows());
+        Assert.Equal(1, await factory.WithDbAsync(db => db.Builds.CountAsync()));
+        Assert.Equal(2 * stock.OpAmpLine.PerUnit, await factory.ReservedSum(stock.OpAmpLine.PartNumber));
+    }
+
+    [Fact]
     public async Task An_unknown_design_is_404()
     {
         using var factory = stock.NewService();
