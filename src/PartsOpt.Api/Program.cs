@@ -1,5 +1,6 @@
 using System.Text.Json;
 using System.Text.Json.Serialization;
+using PartsOpt.Api.Builds;
 using PartsOpt.Api.Circuits;
 using PartsOpt.Api.DesignSearches;
 using Microsoft.OpenApi;
@@ -92,6 +93,8 @@ app.MapKeys();
 app.MapParts();
 app.MapCircuits();
 app.MapDesignSearches();
+app.MapBuilds();
+app.MapStockAlerts();
 app.MapWebhooks();
 
 await app.RunAsync();

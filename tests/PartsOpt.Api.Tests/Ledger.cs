@@ -4,7 +4,8 @@ using PartsOpt.Api.Movements;
 namespace PartsOpt.Api.Tests;
 
 /// <summary>
-/// Reservations and releases are booked by builds (a later feature), not by the API; the tests write
+/// Reservations and releases are booked by builds (/api/v1/builds), not by the movements API; these tests,
+/// which need a reservation without a stored design, write
 /// those ledger rows straight through the service's DbContext.
 /// </summary>
 internal static class Ledger

@@ -47,6 +47,56 @@ public static class StockLedger
         return movement;
     }
 
+    /// <summary>
+    /// The figures of several parts at once, by part number (case-insensitive, as the Parts table compares
+    /// them); a part number with no part is absent. Read inside the caller's transaction when booking.
+    /// </summary>
+    public static async Task<Dictionary<string, (Part Part, StockFigures Figures)>> FiguresOfAsync(
+        PartsOptDbContext db, IReadOnlyCollection<string> partNumbers, CancellationToken ct)
+    {
+        var rows = await db.Parts.AsNoTracking()
+            .Where(p => partNumbers.Contains(p.PartNumber))
+            .Select(p => new
+            {
+                Part = p,
+                OnHand = p.Movements.Sum(m => m.OnHandChange),
+                Reserved = p.Movements.Sum(m => m.ReservedChange),
+            })
+            .ToListAsync(ct);
+        return rows.ToDictionary(r => r.Part.PartNumber, r => (r.Part, new StockFigures(r.OnHand, r.Reserved)),
+            StringComparer.OrdinalIgnoreCase);
+    }
+
+    /// <summary>
+    /// Adds a build's row to the context (saved by the caller): a reservation (reserved +quantity), a release
+    /// (reserved −quantity) or a consumption (on hand and reserved both −quantity). The caller has checked the
+    /// figures inside its transaction: available for a reservation, reserved for a release or consumption.
+    /// </summary>
+    public static Movement BookForBuild(PartsOptDbContext db, int partId, MovementKind kind, int quantity,
+        string reason, string actor, DateTime atUtc)
+    {
+        ArgumentOutOfRangeException.ThrowIfLessThan(quantity, 1);
+        var (onHandChange, reservedChange) = kind switch
+        {
+            MovementKind.Reservation => (0, quantity),
+            MovementKind.Release => (0, -quantity),
+            MovementKind.Consumption => (-quantity, -quantity),
+            _ => throw new ArgumentOutOfRangeException(nameof(kind), kind, "Builds book reservations, releases and consumption."),
+        };
+        var movement = new Movement
+        {
+            PartId = partId,
+            Kind = kind,
+            OnHandChange = onHandChange,
+            ReservedChange = reservedChange,
+            Reason = reason.Length > MovementsEndpoints.MaxReasonLength ? reason[..MovementsEndpoints.MaxReasonLength] : reason,
+            Actor = actor,
+            AtUtc = atUtc,
+        };
+        db.Movements.Add(movement);
+        return movement;
+    }
+
     /// <summary>Why an on-hand change may not be booked, or null when it may.</summary>
     public static string? AdjustmentProblem(StockFigures figures, int onHandChange)
     {

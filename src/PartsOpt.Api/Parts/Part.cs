@@ -83,5 +83,11 @@ public sealed class Part
     public bool? Comparator { get; set; }
     public bool? OpenDrain { get; set; }
 
+    /// <summary>
+    /// Raised by every saved change of the row; a concurrency token, so a stale update fails. Its ETag is
+    /// <see cref="PartVersion.ETagOf"/>.
+    /// </summary>
+    public int Version { get; set; }
+
     public List<Movement> Movements { get; } = [];
 }

@@ -28,6 +28,7 @@ internal sealed class PartConfiguration : IEntityTypeConfiguration<Part>
         part.HasIndex(p => new { p.Kind, p.ResistanceOhms });
         part.HasIndex(p => new { p.Kind, p.CapacitanceF });
 
+        part.Property(p => p.Version).IsConcurrencyToken();
         part.Property(p => p.Kind).HasConversion<string>().HasMaxLength(16);
         part.Property(p => p.Dielectric).HasConversion<string>().HasMaxLength(16);
         part.Property(p => p.Taper).HasConversion<string>().HasMaxLength(8);

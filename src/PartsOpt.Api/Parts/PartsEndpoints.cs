@@ -29,8 +29,9 @@ public static class PartsEndpoints
             .Validate<PartInput>(PartRules.Validate)
             .WithIdempotency();
         parts.MapPut("/{partNumber}", Update).WithName("UpdatePart")
-            .WithSummary("Replaces a part's fields (never its quantity; the kind cannot change).")
+            .WithSummary("Replaces a part's fields (never its quantity; the kind cannot change). With If-Match, only while the ETag is current.")
             .ProducesProblem(StatusCodes.Status404NotFound)
+            .ProducesProblem(StatusCodes.Status412PreconditionFailed)
             .Validate<PartInput>(PartRules.Validate);
         parts.MapDelete("/{partNumber}", Delete).WithName("DeletePart")
             .WithSummary("Removes a part and its ledger; refused while any of it is reserved.")
@@ -47,12 +48,13 @@ public static class PartsEndpoints
             detail: $"There is no part '{partNumber}'.");
 
     private static async Task<Results<Ok<PartDto>, ProblemHttpResult>> Get(
-        string partNumber, PartsOptDbContext db, CancellationToken ct)
+        string partNumber, PartsOptDbContext db, HttpContext http, CancellationToken ct)
     {
         var part = await db.Parts.AsNoTracking().SingleOrDefaultAsync(p => p.PartNumber == partNumber, ct);
         if (part is null)
             return NoSuchPart(partNumber);
         var figures = await StockLedger.FiguresAsync(db, part.Id, ct);
+        http.Response.Headers.ETag = PartVersion.ETagOf(part);
         return TypedResults.Ok(part.ToDto(figures.OnHand, figures.Reserved));
     }
 
@@ -81,6 +83,7 @@ public static class PartsEndpoints
                 return PartExists(partNumber); // lost a race with another create of the same number
             throw;
         }
+        http.Response.Headers.ETag = PartVersion.ETagOf(part);
         return TypedResults.Created(PartMapping.PathOf(part.PartNumber), part.ToDto(initial, 0));
     }
 
@@ -88,12 +91,25 @@ public static class PartsEndpoints
         TypedResults.Problem(statusCode: StatusCodes.Status409Conflict, title: "The part number is taken.",
             detail: $"A part '{partNumber}' exists already; change it with PUT {PartMapping.PathOf(partNumber)}.");
 
+    // If-Match is optional: without it a PUT replaces the fields as it always has (last writer wins). With
+    // it, the check and the write share one transaction, and the version is a concurrency token besides.
     private static async Task<Results<Ok<PartDto>, ValidationProblem, ProblemHttpResult>> Update(
-        string partNumber, PartInput input, PartsOptDbContext db, CancellationToken ct)
+        string partNumber, PartInput input, PartsOptDbContext db, HttpContext http, CancellationToken ct)
     {
+        await using var transaction = await db.Database.BeginTransactionAsync(ct);
         var part = await db.Parts.SingleOrDefaultAsync(p => p.PartNumber == partNumber, ct);
         if (part is null)
             return NoSuchPart(partNumber);
+        switch (PartVersion.Allows(http.Request, part))
+        {
+            case null:
+                return TypedResults.ValidationProblem(new Dictionary<string, string[]>
+                {
+                    ["If-Match"] = ["Entity tags in quotes, as GET gave them in its ETag header, or *."],
+                });
+            case false:
+                return Stale(part);
+        }
 
         var errors = new Dictionary<string, string[]>();
         if (!string.Equals(input.PartNumber, part.PartNumber, StringComparison.OrdinalIgnoreCase))
@@ -106,10 +122,23 @@ public static class PartsEndpoints
             return TypedResults.ValidationProblem(errors);
 
         input.ApplyTo(part);
-        await db.SaveChangesAsync(ct);
+        try
+        {
+            await db.SaveChangesAsync(ct);
+        }
+        catch (DbUpdateConcurrencyException)
+        {
+            return Stale(part); // only another writer outside this transaction could do it; refuse, never guess
+        }
+        await transaction.CommitAsync(ct);
         var figures = await StockLedger.FiguresAsync(db, part.Id, ct);
+        http.Response.Headers.ETag = PartVersion.ETagOf(part);
         return TypedResults.Ok(part.ToDto(figures.OnHand, figures.Reserved));
     }
+
+    private static ProblemHttpResult Stale(Part part) =>
+        TypedResults.Problem(statusCode: StatusCodes.Status412PreconditionFailed, title: "The part has changed since it was read.",
+            detail: $"'{part.PartNumber}' was changed after the ETag you sent was issued; GET it again, reapply your change, and PUT with the new ETag.");
 
     // Deleting removes the part AND its ledger rows, in one transaction, and only while nothing is
     // reserved: a reservation belongs to a build that still needs the part. The ledger is append-only for

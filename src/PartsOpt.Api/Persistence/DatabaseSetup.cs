@@ -18,6 +18,7 @@ public static class DatabaseSetup
 
     public static IServiceCollection AddPartsOptDatabase(this IServiceCollection services)
     {
+        services.AddSingleton<IInterceptor, Parts.PartVersionInterceptor>(); // a part's ETag moves with every saved change
         // Read at resolution time, so settings a test host adds late still count.
         services.AddDbContext<PartsOptDbContext>((provider, options) => options
             .UseSqlite(ConnectionString(provider.GetRequiredService<IConfiguration>()))

@@ -1,4 +1,5 @@
 using Microsoft.EntityFrameworkCore;
+using PartsOpt.Api.Builds;
 using PartsOpt.Api.DesignSearches;
 using PartsOpt.Api.Keys;
 using PartsOpt.Api.Movements;
@@ -19,6 +20,8 @@ public sealed class PartsOptDbContext(DbContextOptions<PartsOptDbContext> option
     public DbSet<SavedSearch> DesignSearches => Set<SavedSearch>();
     public DbSet<SavedDesign> Designs => Set<SavedDesign>();
     public DbSet<DesignNeed> DesignNeeds => Set<DesignNeed>();
+    public DbSet<Build> Builds => Set<Build>();
+    public DbSet<BuildLine> BuildLines => Set<BuildLine>();
     public DbSet<OutboxEvent> OutboxEvents => Set<OutboxEvent>();
     public DbSet<Subscription> Subscriptions => Set<Subscription>();
     public DbSet<Delivery> Deliveries => Set<Delivery>();

@@ -27,7 +27,7 @@ public static class StockEvents
             report.Updated.Count, report.Unchanged, report.Movements, report.Created, report.Updated, actor), atUtc);
 }
 
-/// <summary>The data of stock.low. <c>cause</c> is "movement" or "import".</summary>
+/// <summary>The data of stock.low. <c>cause</c> is "movement", "import" or "build" (a reservation).</summary>
 public sealed record StockLowPayload(string PartNumber, int QuantityOnHand, int Reserved, int Available,
     int ReorderLevel, string Actor, string Cause);
 

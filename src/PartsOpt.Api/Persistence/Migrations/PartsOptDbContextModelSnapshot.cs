@@ -17,6 +17,93 @@ namespace PartsOpt.Api.Persistence.Migrations
 #pragma warning disable 612, 618
             modelBuilder.HasAnnotation("ProductVersion", "10.0.15");
 
+            modelBuilder.Entity("PartsOpt.Api.Builds.Build", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Actor")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTime?>("ClosedAtUtc")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("ClosedBy")
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("DesignId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Note")
+                        .IsRequired()
+                        .HasMaxLength(500)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("Quantity")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Reference")
+                        .IsRequired()
+                        .HasMaxLength(100)
+                        .HasColumnType("TEXT");
+
+                    b.Property<DateTime>("ReservedAtUtc")
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Status")
+                        .IsRequired()
+                        .HasMaxLength(16)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Status", "Id");
+
+                    b.ToTable("Builds", null, t =>
+                        {
+                            t.HasCheckConstraint("CK_Builds_Quantity", "Quantity >= 1");
+                        });
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.Builds.BuildLine", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("BuildId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("Consumed")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("PartNumber")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT")
+                        .UseCollation("NOCASE");
+
+                    b.Property<int>("PerUnit")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<int>("Reserved")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("BuildId", "PartNumber")
+                        .IsUnique();
+
+                    b.ToTable("BuildLines", null, t =>
+                        {
+                            t.HasCheckConstraint("CK_BuildLines_Quantities", "PerUnit >= 1 AND Reserved >= 1 AND Consumed >= 0 AND Consumed <= Reserved");
+                        });
+                });
+
             modelBuilder.Entity("PartsOpt.Api.DesignSearches.DesignNeed", b =>
                 {
                     b.Property<long>("Id")
@@ -356,6 +443,10 @@ namespace PartsOpt.Api.Persistence.Migrations
                     b.Property<decimal>("UnitCost")
                         .HasColumnType("TEXT");
 
+                    b.Property<int>("Version")
+                        .IsConcurrencyToken()
+                        .HasColumnType("INTEGER");
+
                     b.Property<double?>("VoltageRatingV")
                         .HasColumnType("REAL");
 
@@ -584,6 +675,15 @@ namespace PartsOpt.Api.Persistence.Migrations
                     b.ToTable("WebhookSubscriptions", (string)null);
                 });
 
+            modelBuilder.Entity("PartsOpt.Api.Builds.BuildLine", b =>
+                {
+                    b.HasOne("PartsOpt.Api.Builds.Build", null)
+                        .WithMany("Lines")
+                        .HasForeignKey("BuildId")
+                        .OnDelete(DeleteBehavior.Cascade)
+                        .IsRequired();
+                });
+
             modelBuilder.Entity("PartsOpt.Api.DesignSearches.DesignNeed", b =>
                 {
                     b.HasOne("PartsOpt.Api.DesignSearches.SavedDesign", null)
@@ -652,6 +752,11 @@ namespace PartsOpt.Api.Persistence.Migrations
                         .IsRequired();
 
                     b.Navigation("Delivery");
+                });
+
+            modelBuilder.Entity("PartsOpt.Api.Builds.Build", b =>
+                {
+                    b.Navigation("Lines");
                 });
 
             modelBuilder.Entity("PartsOpt.Api.DesignSearches.SavedDesign", b =>
