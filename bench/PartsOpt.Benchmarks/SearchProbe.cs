@@ -7,24 +7,36 @@ namespace PartsOpt.Benchmarks;
 /// <summary>Runs each benchmarked search once and prints what it found and how long it took.</summary>
 public static class SearchProbe
 {
-    public static void Run(IReadOnlyList<string> which)
+    /// <param name="arguments">Stock names to run (demo, large, medium; default all), and optionally
+    /// <c>--limit</c> seconds (default 30).</param>
+    public static void Run(IReadOnlyList<string> arguments)
     {
+        var limitAt = arguments.ToList().IndexOf("--limit");
+        var limitSeconds = limitAt >= 0 ? double.Parse(arguments[limitAt + 1], CultureInfo.InvariantCulture) : 30;
+        var which = arguments.Where((_, i) => limitAt < 0 || (i != limitAt && i != limitAt + 1)).ToList();
         var cases = new (string Name, Func<Stock> Stock, SearchRequirement Requirement)[]
         {
             ("demo", SearchStocks.Demo, SearchStocks.UsualQuestion()),
             ("large", SearchStocks.Large, SearchStocks.UsualQuestion()),
+            ("demo-loop", SearchStocks.Demo, SearchStocks.UsualQuestion(3) with
+            {
+                Frequency = new Band(1000, 0.1), Duty = new DutyRequirement(0.1, 0.9), Topologies = [Topologies.TopologyKind.Loop],
+            }),
+            ("demo-rc", SearchStocks.Demo, SearchStocks.UsualQuestion(3) with
+            {
+                Frequency = new Band(1000, 0.1), Duty = new DutyRequirement(0.1, 0.9), Topologies = [Topologies.TopologyKind.RcRamp],
+            }),
             ("medium", SearchStocks.Medium, SearchStocks.UsualQuestion() with { Frequency = new Band(1000, 0.05) }),
         };
-        SelectionSolver.ExtraParameters = Environment.GetEnvironmentVariable("PROBE_PARAMS") ?? "";
         foreach (var (name, stockOf, requirement) in cases)
         {
             if (which.Count > 0 && !which.Contains(name))
                 continue;
             var stock = stockOf();
             var clock = Stopwatch.StartNew();
-            var outcome = DesignSearch.Run(requirement, stock, new SearchOptions { TimeLimit = TimeSpan.FromSeconds(double.Parse(Environment.GetEnvironmentVariable("PROBE_LIMIT") ?? "120", CultureInfo.InvariantCulture)) });
+            var outcome = DesignSearch.Run(requirement, stock, new SearchOptions { TimeLimit = TimeSpan.FromSeconds(limitSeconds) });
             Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"{name}: {stock.Parts.Count} parts, {stock.OpAmps.Count} op-amps: {outcome.Status} in {clock.Elapsed.TotalMilliseconds:F0} ms, {outcome.Solves} solves, {outcome.Designs.Count} designs"));
+                $"{name}: {stock.Parts.Count} parts, {stock.OpAmps.Count} op-amps: {outcome.Status} in {clock.Elapsed.TotalMilliseconds:F0} ms, {outcome.Solves} solves, {outcome.Designs.Count} designs (limit {limitSeconds} s)"));
             foreach (var design in outcome.Designs.Take(3))
                 Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  #{design.Rank} {design.Topology} {design.Cost.PerBoard:F4}"));
         }
