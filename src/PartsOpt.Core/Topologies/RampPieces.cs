@@ -96,6 +96,27 @@ internal struct RampPieces
     }
 
     /// <summary>
+    /// The relaxation oscillator's capacitor, written in place: <see cref="Driven"/> with gain 1 from the
+    /// falling trip at <paramref name="tripHighV"/> (β·L+), its held phases ending exactly at the trip
+    /// points β·L− and β·L+, since the half periods are the times at which it reaches them
+    /// (<see cref="RelaxationTiming.HalfPeriods(double, double, double, double, double)"/>). So the held
+    /// phases need no exponential, and the edges' own factors come from the half periods' computation.
+    /// </summary>
+    public void FillRelaxation(double tauS, double levelHigh, double levelLow, double edgeS, double lowHeldS,
+        double highHeldS, double tripHighV, double tripLowV, double edgeX, double edgeExcess)
+    {
+        var slew = edgeS > 0 ? (levelHigh - levelLow) / edgeS : 0;
+        var edge = new Decay(edgeS, edgeX, edgeExcess);
+        Count = 0;
+        MaxV = double.NegativeInfinity;
+        MinV = double.PositiveInfinity;
+        var v = Phase(tripHighV, levelHigh, -slew, edge, tauS);
+        Phase(v, tripLowV, levelLow, 0, lowHeldS, tauS);
+        v = Phase(tripLowV, levelLow, slew, edge, tauS);
+        Phase(v, tripHighV, levelHigh, 0, highHeldS, tauS);
+    }
+
+    /// <summary>
     /// The exponential factors of one phase of duration d: x = 1 − e^(−u) and the excess u − x, u = d/τ.
     /// A phase's end is linear in its start value given these, so they are computed once per duration.
     /// </summary>
@@ -109,6 +130,14 @@ internal struct RampPieces
             var u = durationS / tauS;
             X = -Accurate.ExpM1(-u);
             Excess = RelaxationTiming.ExcessOverChord(u, X);
+        }
+
+        /// <summary>The factors of a phase whose x = 1 − e^(−u) and u − x the caller has already.</summary>
+        public Decay(double durationS, double x, double excess)
+        {
+            DurationS = durationS;
+            X = x;
+            Excess = excess;
         }
 
         /// <summary>The value at the phase's end from <paramref name="v"/> (unchanged for an empty phase).</summary>
@@ -237,10 +266,12 @@ internal struct RampPieces
         return end;
     }
 
-    private double Phase(double v, double target, double slope, in Decay decay, double tauS)
+    private double Phase(double v, double target, double slope, in Decay decay, double tauS) =>
+        Phase(v, decay.End(v, target, slope, tauS), target, slope, decay.DurationS, tauS);
+
+    /// <summary>One phase from <paramref name="v"/> to <paramref name="end"/>, split at a turning point inside it.</summary>
+    private double Phase(double v, double end, double target, double slope, double durationS, double tauS)
     {
-        var end = decay.End(v, target, slope, tauS);
-        var durationS = decay.DurationS;
         Extend(v);
         Extend(end);
         if (durationS <= 0)
