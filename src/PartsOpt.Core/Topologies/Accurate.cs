@@ -38,6 +38,7 @@ internal static class Accurate
     public static double Log1P(double x)
     {
         var u = 1.0 + x;
-        return u == 1.0 ? x : Math.Log(u) * x / (u - 1.0);
+        // The correction x/(u − 1) does not wait for the logarithm, so the division runs beside it.
+        return u == 1.0 ? x : Math.Log(u) * (x / (u - 1.0));
     }
 }
