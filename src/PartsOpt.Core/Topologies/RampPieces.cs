@@ -184,12 +184,30 @@ internal struct RampPieces
             var chordStart = falling ? MaxV : MinV;
             var elapsed = falling ? elapsedFall : elapsedRise;
             var chordSlope = falling ? fallSlope : riseSlope;
-            worst = Math.Max(worst, Math.Abs(Deviation(piece, chordStart, chordSlope, elapsed)));
+            if (MayMeetChordSlope(piece, this[index + 1 < Count ? index + 1 : 0], chordSlope))
+                worst = Math.Max(worst, Math.Abs(Deviation(piece, chordStart, chordSlope, elapsed)));
             if (falling) elapsedFall += piece.DurationS;
             else elapsedRise += piece.DurationS;
         }
 
         return worst / swing;
+    }
+
+    /// <summary>
+    /// Whether an exponential piece's slope can equal the chord's somewhere inside it, the only place the
+    /// distance can have its extremum. On such a piece the slope runs monotonically from its start slope
+    /// to its end slope, and the end slope is the next piece's start slope: the ramp's slope is continuous
+    /// because the stage's input is. False only when both lie on the same side of the chord's slope by a
+    /// margin far above their rounding, so a meeting at a piece boundary is still looked for on both sides;
+    /// always true next to a straight or parabolic piece. Spares most pieces a logarithm.
+    /// </summary>
+    private static bool MayMeetChordSlope(in RampSegment piece, in RampSegment next, double chordSlope)
+    {
+        if (double.IsPositiveInfinity(piece.TauS) || double.IsPositiveInfinity(next.TauS))
+            return true;
+        var margin = 1e-9 * Math.Abs(chordSlope);
+        double atStart = piece.StartSlope - chordSlope, atEnd = next.StartSlope - chordSlope;
+        return !((atStart > margin && atEnd > margin) || (atStart < -margin && atEnd < -margin));
     }
 
     private static double Deviation(in RampSegment piece, double chordStart, double chordSlope, double elapsedS)

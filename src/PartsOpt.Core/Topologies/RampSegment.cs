@@ -45,9 +45,10 @@ internal readonly record struct RampSegment(double StartV, double EndV, double D
 
     /// <summary>
     /// dv/dt at the start, (A − v0)/τ, exactly what <see cref="SlopeAt(double)"/> gives at 0 (there x = 0),
-    /// without the call to the exponential.
+    /// without the call to the exponential. Stored, not recomputed: the linearity error reads it twice
+    /// for every piece (the piece's own and, as the end slope of the one before, the next's).
     /// </summary>
-    public double StartSlope => (TargetV - StartV) / TauS;
+    public double StartSlope { get; } = (TargetV - StartV) / TauS;
 
     /// <summary>Time of this segment during which the ramp is above <paramref name="thresholdV"/>.</summary>
     public double TimeAbove(double thresholdV)
