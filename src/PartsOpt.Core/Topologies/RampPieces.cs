@@ -32,13 +32,46 @@ internal struct RampPieces
         _pieces[Math.Min(Count++, 5)] = piece;
     }
 
-    /// <summary>Time per period above <paramref name="thresholdV"/>.</summary>
+    /// <summary>
+    /// Time per period above <paramref name="thresholdV"/>. A crossing of a plain exponential piece is at
+    /// τ·log1p(q), q = (v0 − V)/(V − A) &gt; 0 (<see cref="RampSegment.TimeAbove"/>); the crossings of pieces
+    /// sharing one τ (every piece of a driven ramp) are summed inside a single log1p, by
+    /// log1p(a) + log1p(b) = log1p(a + b + a·b) and log1p(a) − log1p(b) = log1p((a − b)/(1 + b)) (the time
+    /// above a rising piece is its duration less its crossing), so a threshold crossed twice costs one
+    /// logarithm. Both forms keep log1p's absolute precision: no 1 + q is formed before the logarithm.
+    /// </summary>
     public readonly double TimeAbove(double thresholdV)
     {
-        var sum = 0.0;
+        double sum = 0, combined = 0, combinedTauS = double.NaN;
         for (var i = 0; i < Count; i++)
-            sum += this[i].TimeAbove(thresholdV);
-        return sum;
+        {
+            ref readonly var piece = ref this[i];
+            var rising = piece.EndV > piece.StartV;
+            var inside = rising
+                ? thresholdV > piece.StartV && thresholdV < piece.EndV
+                : thresholdV < piece.StartV && thresholdV > piece.EndV;
+            if (inside && piece.SlopeVPerS == 0 && double.IsFinite(piece.TauS)
+                && (double.IsNaN(combinedTauS) || piece.TauS == combinedTauS))
+            {
+                combinedTauS = piece.TauS;
+                var q = (piece.StartV - thresholdV) / (thresholdV - piece.TargetV);
+                if (rising)
+                {
+                    sum += piece.DurationS;
+                    combined = (combined - q) / (1 + q);
+                }
+                else
+                {
+                    combined += q + combined * q;
+                }
+            }
+            else
+            {
+                sum += piece.TimeAbove(thresholdV);
+            }
+        }
+
+        return double.IsNaN(combinedTauS) ? sum : sum + combinedTauS * Accurate.Log1P(combined);
     }
 
     /// <summary>

@@ -75,4 +75,49 @@ public class RampPiecesTests
             Precision.AlmostEqualRelative(expected, ramp.LinearityError(), 1e-6, $"linearity error, trial {trial}");
         }
     }
+
+    [Fact]
+    public void Time_above_a_threshold_matches_crossings_found_by_a_root_finder()
+    {
+        // Reference: each piece's crossing of the threshold found by MathNet's Brent root finder on the
+        // piece's exact solution (v(t) = V on the monotonic piece), summed as time above. The engine sums
+        // the crossings of a threshold inside one log1p; it must agree to rounding (1e-11 of the period;
+        // the root finder is asked for 1e-15 of each piece). Random driven ramps (long and short time
+        // constants, gains of both signs) and eleven thresholds across each.
+        var random = new Random(9);
+        for (var trial = 0; trial < 200; trial++)
+        {
+            var gain = random.Next(2) == 0 ? 1 : -(0.5 + 20 * random.NextDouble());
+            var period = 50e-6;
+            var tau = period * Math.Pow(10, -0.7 + 3 * random.NextDouble());
+            var edge = period * Math.Pow(10, -3.7 + 2.7 * random.NextDouble());
+            var share = 0.2 + 0.6 * random.NextDouble();
+            var ramp = RampPieces.Driven(gain, tau, 2 + 12 * random.NextDouble(), -(2 + 12 * random.NextDouble()),
+                edge, share * period - edge, (1 - share) * period - edge);
+            for (var k = 1; k < 12; k++)
+            {
+                var threshold = ramp.MinV + (ramp.MaxV - ramp.MinV) * k / 12;
+                var expected = 0.0;
+                for (var i = 0; i < ramp.Count; i++)
+                {
+                    var piece = ramp[i];
+                    var rising = piece.EndV > piece.StartV;
+                    if (threshold >= Math.Max(piece.StartV, piece.EndV))
+                        continue;
+                    if (threshold <= Math.Min(piece.StartV, piece.EndV))
+                    {
+                        expected += piece.DurationS;
+                        continue;
+                    }
+
+                    var crossing = MathNet.Numerics.RootFinding.Brent.FindRoot(
+                        t => piece.ValueAt(t) - threshold, 0, piece.DurationS, 1e-15 * piece.DurationS, 200);
+                    expected += rising ? piece.DurationS - crossing : crossing;
+                }
+
+                Precision.AlmostEqualAbsolute(expected, ramp.TimeAbove(threshold), 1e-11 * period,
+                    $"time above, trial {trial}, threshold {k}/12");
+            }
+        }
+    }
 }
