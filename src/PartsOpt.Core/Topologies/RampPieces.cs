@@ -327,28 +327,63 @@ internal struct RampPieces
         Extend(end);
         if (durationS <= 0)
             return v;
-        if (slope != 0)
+        if (TurningPoint(v, target, slope, durationS, tauS, out var turn, out var peak))
         {
-            // v′ = 0 where e^(−t/τ) = B·τ/(v0 − A + B·τ), i.e. t = τ·log1p((v0 − A)/(B·τ)).
-            var r = (v - target) / (slope * tauS);
-            var u = Accurate.Log1P(r);
-            var turn = tauS * u;
-            if (turn > 0 && turn < durationS)
-            {
-                // There 1 − e^(−t/τ) = r/(1 + r) in closed form, so the peak needs no exponential. (Not
-                // the equal A + B·t: with a long τ, A and B·t are huge and cancel.)
-                var first = new RampSegment(v, double.NaN, turn, target, tauS, slope);
-                var peak = first.ValueAt(u, r / (1 + r));
-                Extend(peak);
-                Add(first with { EndV = peak });
-                // Restart at the turning point: the target there is A + B·t.
-                Add(new RampSegment(peak, end, durationS - turn, target + slope * turn, tauS, slope));
-                return end;
-            }
+            Extend(peak);
+            Add(new RampSegment(v, peak, turn, target, tauS, slope));
+            // Restart at the turning point: the target there is A + B·t.
+            Add(new RampSegment(peak, end, durationS - turn, target + slope * turn, tauS, slope));
+            return end;
         }
 
         Add(new RampSegment(v, end, durationS, target, tauS, slope));
         return end;
+    }
+
+    /// <summary>
+    /// The turning point strictly inside a phase whose target moves at B ≠ 0: v′ = 0 where
+    /// e^(−t/τ) = B·τ/(v0 − A + B·τ), i.e. t = τ·log1p((v0 − A)/(B·τ)). There 1 − e^(−t/τ) = r/(1 + r) in
+    /// closed form, so the peak needs no exponential. (Not the equal A + B·t: with a long τ, A and B·t are
+    /// huge and cancel.) False when the phase has none.
+    /// </summary>
+    private static bool TurningPoint(double v, double target, double slope, double durationS, double tauS,
+        out double turnS, out double peakV)
+    {
+        turnS = peakV = double.NaN;
+        if (slope == 0 || !(durationS > 0))
+            return false;
+        var r = (v - target) / (slope * tauS);
+        var u = Accurate.Log1P(r);
+        var turn = tauS * u;
+        if (!(turn > 0 && turn < durationS))
+            return false;
+        turnS = turn;
+        peakV = RampSegment.ValueAt(v, target, tauS, slope, u, r / (1 + r));
+        return true;
+    }
+
+    /// <summary>
+    /// The extremes <see cref="FillRelaxation"/> would give (the same values, bit for bit), without its
+    /// pieces: the three-stage generator needs only its capacitor's swing, for the supply current.
+    /// </summary>
+    public static (double MaxV, double MinV) RelaxationExtremes(double tauS, double levelHigh, double levelLow,
+        double edgeS, double tripHighV, double tripLowV, double edgeX, double edgeExcess)
+    {
+        var slew = edgeS > 0 ? (levelHigh - levelLow) / edgeS : 0;
+        var edge = new Decay(edgeS, edgeX, edgeExcess);
+        var extremes = new RampPieces { MaxV = double.NegativeInfinity, MinV = double.PositiveInfinity };
+        // Every value FillRelaxation extends by: each phase's start and end, and the edges' turning points.
+        var fallEnd = edge.End(tripHighV, levelHigh, -slew, tauS);
+        var riseEnd = edge.End(tripLowV, levelLow, slew, tauS);
+        extremes.Extend(tripHighV);
+        extremes.Extend(fallEnd);
+        if (TurningPoint(tripHighV, levelHigh, -slew, edgeS, tauS, out _, out var peak))
+            extremes.Extend(peak);
+        extremes.Extend(tripLowV);
+        extremes.Extend(riseEnd);
+        if (TurningPoint(tripLowV, levelLow, slew, edgeS, tauS, out _, out var trough))
+            extremes.Extend(trough);
+        return (extremes.MaxV, extremes.MinV);
     }
 
     private void Extend(double v)

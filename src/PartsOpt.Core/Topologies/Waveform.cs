@@ -123,10 +123,9 @@ internal struct Waveform
         // Lossy integrator, v′ = (−(Rf/Ri)·w(t) − v)/(Rf·Ci), driven by the oscillator's trapezoid; its
         // periodic steady state, with the turning points inside the edges where the input crosses −v·Ri/Rf.
         var edge = w.AmpEdgeS;
-        var capacitor = default(RampPieces);
-        capacitor.FillRelaxation(v.OscR * v.OscC, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge,
-            w.HighTimeS - edge, w.Ratio * w.LevelHighRel, w.Ratio * w.LevelLowRel, edgeX, edgeExcess);
-        w.CapacitorSwingV = capacitor.MaxV - capacitor.MinV;
+        var (capacitorMax, capacitorMin) = RampPieces.RelaxationExtremes(v.OscR * v.OscC, w.LevelHighRel, w.LevelLowRel,
+            edge, w.Ratio * w.LevelHighRel, w.Ratio * w.LevelLowRel, edgeX, edgeExcess);
+        w.CapacitorSwingV = capacitorMax - capacitorMin;
         var tau = v.IntRf * v.IntC;
         w.Ramp.FillDriven(-v.IntRf / v.IntR, tau, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge, w.HighTimeS - edge);
         w.RampMaxRel = w.Ramp.MaxV;

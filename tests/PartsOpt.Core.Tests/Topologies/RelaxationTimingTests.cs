@@ -177,6 +177,10 @@ public class RelaxationTimingTests
 
             Precision.AlmostEqualAbsolute(driven.MaxV, pinned.MaxV, 1e-11 * scale, "maximum");
             Precision.AlmostEqualAbsolute(driven.MinV, pinned.MinV, 1e-11 * scale, "minimum");
+            // The extremes alone (the three-stage generator's capacitor swing) are the pinned ramp's, exactly.
+            var (max, min) = RampPieces.RelaxationExtremes(rc, high, low, edge, beta * high, beta * low, x, excess);
+            Assert.Equal(pinned.MaxV, max);
+            Assert.Equal(pinned.MinV, min);
             compared++;
         }
 
