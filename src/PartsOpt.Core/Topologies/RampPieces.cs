@@ -230,7 +230,8 @@ internal struct RampPieces
     /// Whether an exponential piece's slope can equal the chord's somewhere inside it, the only place the
     /// distance can have its extremum. On such a piece the slope runs monotonically from its start slope
     /// to its end slope, and the end slope is the next piece's start slope: the ramp's slope is continuous
-    /// because the stage's input is. False only when both lie on the same side of the chord's slope by a
+    /// because the stage's input is (and the last piece's end slope is the first's start slope, since every
+    /// ramp analysed is a steady state, periodic). False only when both lie on the same side of the chord's slope by a
     /// margin far above their rounding, so a meeting at a piece boundary is still looked for on both sides;
     /// always true next to a straight or parabolic piece. Spares most pieces a logarithm.
     /// </summary>
