@@ -32,13 +32,46 @@ internal struct RampPieces
         _pieces[Math.Min(Count++, 5)] = piece;
     }
 
-    /// <summary>Time per period above <paramref name="thresholdV"/>.</summary>
+    /// <summary>
+    /// Time per period above <paramref name="thresholdV"/>. A crossing of a plain exponential piece is at
+    /// τ·log1p(q), q = (v0 − V)/(V − A) &gt; 0 (<see cref="RampSegment.TimeAbove"/>); the crossings of pieces
+    /// sharing one τ (every piece of a driven ramp) are summed inside a single log1p, by
+    /// log1p(a) + log1p(b) = log1p(a + b + a·b) and log1p(a) − log1p(b) = log1p((a − b)/(1 + b)) (the time
+    /// above a rising piece is its duration less its crossing), so a threshold crossed twice costs one
+    /// logarithm. Both forms keep log1p's absolute precision: no 1 + q is formed before the logarithm.
+    /// </summary>
     public readonly double TimeAbove(double thresholdV)
     {
-        var sum = 0.0;
+        double sum = 0, combined = 0, combinedTauS = double.NaN;
         for (var i = 0; i < Count; i++)
-            sum += this[i].TimeAbove(thresholdV);
-        return sum;
+        {
+            ref readonly var piece = ref this[i];
+            var rising = piece.EndV > piece.StartV;
+            var inside = rising
+                ? thresholdV > piece.StartV && thresholdV < piece.EndV
+                : thresholdV < piece.StartV && thresholdV > piece.EndV;
+            if (inside && piece.SlopeVPerS == 0 && double.IsFinite(piece.TauS)
+                && (double.IsNaN(combinedTauS) || piece.TauS == combinedTauS))
+            {
+                combinedTauS = piece.TauS;
+                var q = (piece.StartV - thresholdV) / (thresholdV - piece.TargetV);
+                if (rising)
+                {
+                    sum += piece.DurationS;
+                    combined = (combined - q) / (1 + q);
+                }
+                else
+                {
+                    combined += q + combined * q;
+                }
+            }
+            else
+            {
+                sum += piece.TimeAbove(thresholdV);
+            }
+        }
+
+        return double.IsNaN(combinedTauS) ? sum : sum + combinedTauS * Accurate.Log1P(combined);
     }
 
     /// <summary>
@@ -96,6 +129,27 @@ internal struct RampPieces
     }
 
     /// <summary>
+    /// The relaxation oscillator's capacitor, written in place: <see cref="Driven"/> with gain 1 from the
+    /// falling trip at <paramref name="tripHighV"/> (β·L+), its held phases ending exactly at the trip
+    /// points β·L− and β·L+, since the half periods are the times at which it reaches them
+    /// (<see cref="RelaxationTiming.HalfPeriods(double, double, double, double, double)"/>). So the held
+    /// phases need no exponential, and the edges' own factors come from the half periods' computation.
+    /// </summary>
+    public void FillRelaxation(double tauS, double levelHigh, double levelLow, double edgeS, double lowHeldS,
+        double highHeldS, double tripHighV, double tripLowV, double edgeX, double edgeExcess)
+    {
+        var slew = edgeS > 0 ? (levelHigh - levelLow) / edgeS : 0;
+        var edge = new Decay(edgeS, edgeX, edgeExcess);
+        Count = 0;
+        MaxV = double.NegativeInfinity;
+        MinV = double.PositiveInfinity;
+        var v = Phase(tripHighV, levelHigh, -slew, edge, tauS);
+        Phase(v, tripLowV, levelLow, 0, lowHeldS, tauS);
+        v = Phase(tripLowV, levelLow, slew, edge, tauS);
+        Phase(v, tripHighV, levelHigh, 0, highHeldS, tauS);
+    }
+
+    /// <summary>
     /// The exponential factors of one phase of duration d: x = 1 − e^(−u) and the excess u − x, u = d/τ.
     /// A phase's end is linear in its start value given these, so they are computed once per duration.
     /// </summary>
@@ -109,6 +163,14 @@ internal struct RampPieces
             var u = durationS / tauS;
             X = -Accurate.ExpM1(-u);
             Excess = RelaxationTiming.ExcessOverChord(u, X);
+        }
+
+        /// <summary>The factors of a phase whose x = 1 − e^(−u) and u − x the caller has already.</summary>
+        public Decay(double durationS, double x, double excess)
+        {
+            DurationS = durationS;
+            X = x;
+            Excess = excess;
         }
 
         /// <summary>The value at the phase's end from <paramref name="v"/> (unchanged for an empty phase).</summary>
@@ -155,12 +217,31 @@ internal struct RampPieces
             var chordStart = falling ? MaxV : MinV;
             var elapsed = falling ? elapsedFall : elapsedRise;
             var chordSlope = falling ? fallSlope : riseSlope;
-            worst = Math.Max(worst, Math.Abs(Deviation(piece, chordStart, chordSlope, elapsed)));
+            if (MayMeetChordSlope(piece, this[index + 1 < Count ? index + 1 : 0], chordSlope))
+                worst = Math.Max(worst, Math.Abs(Deviation(piece, chordStart, chordSlope, elapsed)));
             if (falling) elapsedFall += piece.DurationS;
             else elapsedRise += piece.DurationS;
         }
 
         return worst / swing;
+    }
+
+    /// <summary>
+    /// Whether an exponential piece's slope can equal the chord's somewhere inside it, the only place the
+    /// distance can have its extremum. On such a piece the slope runs monotonically from its start slope
+    /// to its end slope, and the end slope is the next piece's start slope: the ramp's slope is continuous
+    /// because the stage's input is (and the last piece's end slope is the first's start slope, since every
+    /// ramp analysed is a steady state, periodic). False only when both lie on the same side of the chord's slope by a
+    /// margin far above their rounding, so a meeting at a piece boundary is still looked for on both sides;
+    /// always true next to a straight or parabolic piece. Spares most pieces a logarithm.
+    /// </summary>
+    private static bool MayMeetChordSlope(in RampSegment piece, in RampSegment next, double chordSlope)
+    {
+        if (double.IsPositiveInfinity(piece.TauS) || double.IsPositiveInfinity(next.TauS))
+            return true;
+        var margin = 1e-9 * Math.Abs(chordSlope);
+        double atStart = piece.StartSlope - chordSlope, atEnd = next.StartSlope - chordSlope;
+        return !((atStart > margin && atEnd > margin) || (atStart < -margin && atEnd < -margin));
     }
 
     private static double Deviation(in RampSegment piece, double chordStart, double chordSlope, double elapsedS)
@@ -237,36 +318,73 @@ internal struct RampPieces
         return end;
     }
 
-    private double Phase(double v, double target, double slope, in Decay decay, double tauS)
+    private double Phase(double v, double target, double slope, in Decay decay, double tauS) =>
+        Phase(v, decay.End(v, target, slope, tauS), target, slope, decay.DurationS, tauS);
+
+    /// <summary>One phase from <paramref name="v"/> to <paramref name="end"/>, split at a turning point inside it.</summary>
+    private double Phase(double v, double end, double target, double slope, double durationS, double tauS)
     {
-        var end = decay.End(v, target, slope, tauS);
-        var durationS = decay.DurationS;
         Extend(v);
         Extend(end);
         if (durationS <= 0)
             return v;
-        if (slope != 0)
+        if (TurningPoint(v, target, slope, durationS, tauS, out var turn, out var peak))
         {
-            // v′ = 0 where e^(−t/τ) = B·τ/(v0 − A + B·τ), i.e. t = τ·log1p((v0 − A)/(B·τ)).
-            var r = (v - target) / (slope * tauS);
-            var u = Accurate.Log1P(r);
-            var turn = tauS * u;
-            if (turn > 0 && turn < durationS)
-            {
-                // There 1 − e^(−t/τ) = r/(1 + r) in closed form, so the peak needs no exponential. (Not
-                // the equal A + B·t: with a long τ, A and B·t are huge and cancel.)
-                var first = new RampSegment(v, double.NaN, turn, target, tauS, slope);
-                var peak = first.ValueAt(u, r / (1 + r));
-                Extend(peak);
-                Add(first with { EndV = peak });
-                // Restart at the turning point: the target there is A + B·t.
-                Add(new RampSegment(peak, end, durationS - turn, target + slope * turn, tauS, slope));
-                return end;
-            }
+            Extend(peak);
+            Add(new RampSegment(v, peak, turn, target, tauS, slope));
+            // Restart at the turning point: the target there is A + B·t.
+            Add(new RampSegment(peak, end, durationS - turn, target + slope * turn, tauS, slope));
+            return end;
         }
 
         Add(new RampSegment(v, end, durationS, target, tauS, slope));
         return end;
+    }
+
+    /// <summary>
+    /// The turning point strictly inside a phase whose target moves at B ≠ 0: v′ = 0 where
+    /// e^(−t/τ) = B·τ/(v0 − A + B·τ), i.e. t = τ·log1p((v0 − A)/(B·τ)). There 1 − e^(−t/τ) = r/(1 + r) in
+    /// closed form, so the peak needs no exponential. (Not the equal A + B·t: with a long τ, A and B·t are
+    /// huge and cancel.) False when the phase has none.
+    /// </summary>
+    private static bool TurningPoint(double v, double target, double slope, double durationS, double tauS,
+        out double turnS, out double peakV)
+    {
+        turnS = peakV = double.NaN;
+        if (slope == 0 || !(durationS > 0))
+            return false;
+        var r = (v - target) / (slope * tauS);
+        var u = Accurate.Log1P(r);
+        var turn = tauS * u;
+        if (!(turn > 0 && turn < durationS))
+            return false;
+        turnS = turn;
+        peakV = RampSegment.ValueAt(v, target, tauS, slope, u, r / (1 + r));
+        return true;
+    }
+
+    /// <summary>
+    /// The extremes <see cref="FillRelaxation"/> would give (the same values, bit for bit), without its
+    /// pieces: the three-stage generator needs only its capacitor's swing, for the supply current.
+    /// </summary>
+    public static (double MaxV, double MinV) RelaxationExtremes(double tauS, double levelHigh, double levelLow,
+        double edgeS, double tripHighV, double tripLowV, double edgeX, double edgeExcess)
+    {
+        var slew = edgeS > 0 ? (levelHigh - levelLow) / edgeS : 0;
+        var edge = new Decay(edgeS, edgeX, edgeExcess);
+        var extremes = new RampPieces { MaxV = double.NegativeInfinity, MinV = double.PositiveInfinity };
+        // Every value FillRelaxation extends by: each phase's start and end, and the edges' turning points.
+        var fallEnd = edge.End(tripHighV, levelHigh, -slew, tauS);
+        var riseEnd = edge.End(tripLowV, levelLow, slew, tauS);
+        extremes.Extend(tripHighV);
+        extremes.Extend(fallEnd);
+        if (TurningPoint(tripHighV, levelHigh, -slew, edgeS, tauS, out _, out var peak))
+            extremes.Extend(peak);
+        extremes.Extend(tripLowV);
+        extremes.Extend(riseEnd);
+        if (TurningPoint(tripLowV, levelLow, slew, edgeS, tauS, out _, out var trough))
+            extremes.Extend(trough);
+        return (extremes.MaxV, extremes.MinV);
     }
 
     private void Extend(double v)

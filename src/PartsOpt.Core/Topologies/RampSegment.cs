@@ -34,8 +34,11 @@ internal readonly record struct RampSegment(double StartV, double EndV, double D
     /// The value at u = t/τ given x = 1 − e^(−u), for callers that know x already (it is the only
     /// transcendental in the value, so sharing it with <see cref="SlopeAt(double)"/> halves the cost).
     /// </summary>
-    public double ValueAt(double u, double x) =>
-        StartV + (TargetV - StartV) * x + SlopeVPerS * TauS * RelaxationTiming.ExcessOverChord(u, x);
+    public double ValueAt(double u, double x) => ValueAt(StartV, TargetV, TauS, SlopeVPerS, u, x);
+
+    /// <summary>The value of the piece with these parameters at u = t/τ, given x = 1 − e^(−u).</summary>
+    public static double ValueAt(double startV, double targetV, double tauS, double slopeVPerS, double u, double x) =>
+        startV + (targetV - startV) * x + slopeVPerS * tauS * RelaxationTiming.ExcessOverChord(u, x);
 
     /// <summary>dv/dt at <paramref name="t"/> seconds into the piece (not for straight pieces).</summary>
     public double SlopeAt(double t) => SlopeFrom(-Accurate.ExpM1(-t / TauS));
@@ -45,9 +48,10 @@ internal readonly record struct RampSegment(double StartV, double EndV, double D
 
     /// <summary>
     /// dv/dt at the start, (A − v0)/τ, exactly what <see cref="SlopeAt(double)"/> gives at 0 (there x = 0),
-    /// without the call to the exponential.
+    /// without the call to the exponential. Stored, not recomputed: the linearity error reads it twice
+    /// for every piece (the piece's own and, as the end slope of the one before, the next's).
     /// </summary>
-    public double StartSlope => (TargetV - StartV) / TauS;
+    public double StartSlope { get; } = (TargetV - StartV) / TauS;
 
     /// <summary>Time of this segment during which the ramp is above <paramref name="thresholdV"/>.</summary>
     public double TimeAbove(double thresholdV)

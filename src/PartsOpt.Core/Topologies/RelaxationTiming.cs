@@ -30,8 +30,18 @@ public static class RelaxationTiming
     /// <param name="levelHigh">L+ relative to the reference, V (&gt; 0).</param>
     /// <param name="levelLow">L− relative to the reference, V (&lt; 0).</param>
     /// <param name="slewRate">Output slew rate, V/s (may be +∞).</param>
-    public static (double High, double Low) HalfPeriods(double rc, double beta, double levelHigh, double levelLow, double slewRate)
+    public static (double High, double Low) HalfPeriods(double rc, double beta, double levelHigh, double levelLow, double slewRate) =>
+        HalfPeriods(rc, beta, levelHigh, levelLow, slewRate, out _, out _);
+
+    /// <summary>
+    /// <see cref="HalfPeriods(double, double, double, double, double)"/>, also giving the edge's
+    /// exponential factors x = 1 − e^(−u) and u − x, u = t_e/(R·C), for the capacitor's ramp, which
+    /// needs exactly these (so it does not compute them again).
+    /// </summary>
+    internal static (double High, double Low) HalfPeriods(double rc, double beta, double levelHigh, double levelLow,
+        double slewRate, out double edgeX, out double edgeExcess)
     {
+        edgeX = edgeExcess = double.NaN;
         if (!(levelHigh > 0 && levelLow < 0 && beta > 0 && beta < 1 && rc > 0 && slewRate > 0))
             return (double.NaN, double.NaN);
         var swing = levelHigh - levelLow;
@@ -39,7 +49,10 @@ public static class RelaxationTiming
         var u = edge / rc;
         // Both half periods share u: one e^(−u) for the pair (it dominated the cost of this call).
         var x = -Accurate.ExpM1(-u);
-        var oneMinusPhi = u == 0 ? 0 : ExcessOverChord(u, x) / u;
+        var excess = ExcessOverChord(u, x);
+        edgeX = x;
+        edgeExcess = excess;
+        var oneMinusPhi = u == 0 ? 0 : excess / u;
         var low = edge + rc * SaturatedLog(x, oneMinusPhi, beta, swing, levelHigh, -levelLow);
         var high = edge + rc * SaturatedLog(x, oneMinusPhi, beta, swing, -levelLow, levelHigh);
         return double.IsFinite(low) && double.IsFinite(high) ? (high, low) : (double.NaN, double.NaN);
@@ -70,7 +83,7 @@ public static class RelaxationTiming
 
     /// <summary>
     /// The bracket [R·C·k + a·2·t_e, R·C·k + b·2·t_e] of the slewing oscillator's period, with a and b from
-    /// <see cref="EdgeMultipliers"/>; the exact period (<see cref="HalfPeriods"/>) lies inside it.
+    /// <see cref="EdgeMultipliers"/>; the exact period (<see cref="HalfPeriods(double, double, double, double, double)"/>) lies inside it.
     /// </summary>
     /// <param name="rc">Timing resistor times capacitor, s.</param>
     /// <param name="beta">Feedback ratio r2/(r1 + r2).</param>

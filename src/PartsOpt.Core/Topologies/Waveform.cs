@@ -103,11 +103,12 @@ internal struct Waveform
 
     /// <summary>
     /// High and low times of the slewing relaxation oscillator, mid-edge to mid-edge
-    /// (<see cref="RelaxationTiming.HalfPeriods"/>); false when an edge cannot complete.
+    /// (<see cref="RelaxationTiming.HalfPeriods(double, double, double, double, double)"/>); false when an edge cannot complete.
     /// </summary>
-    private static bool RelaxationTimes(in CircuitValues v, ref Waveform w)
+    private static bool RelaxationTimes(in CircuitValues v, ref Waveform w, out double edgeX, out double edgeExcess)
     {
-        var (high, low) = RelaxationTiming.HalfPeriods(v.OscR * v.OscC, w.Ratio, w.LevelHighRel, w.LevelLowRel, v.AmpSlewRate);
+        var (high, low) = RelaxationTiming.HalfPeriods(v.OscR * v.OscC, w.Ratio, w.LevelHighRel, w.LevelLowRel,
+            v.AmpSlewRate, out edgeX, out edgeExcess);
         w.HighTimeS = high;
         w.LowTimeS = low;
         w.PeriodS = high + low;
@@ -116,15 +117,15 @@ internal struct Waveform
 
     private static bool ThreeStage(in CircuitValues v, CircuitShape shape, ref Waveform w)
     {
-        if (!RelaxationCanSwitch(in w, w.Ratio, shape.AmpOffsetV) || !RelaxationTimes(in v, ref w))
+        if (!RelaxationCanSwitch(in w, w.Ratio, shape.AmpOffsetV) || !RelaxationTimes(in v, ref w, out var edgeX, out var edgeExcess))
             return false;
 
         // Lossy integrator, v′ = (−(Rf/Ri)·w(t) − v)/(Rf·Ci), driven by the oscillator's trapezoid; its
         // periodic steady state, with the turning points inside the edges where the input crosses −v·Ri/Rf.
         var edge = w.AmpEdgeS;
-        var capacitor = RampPieces.Driven(1, v.OscR * v.OscC, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge,
-            w.HighTimeS - edge, w.Ratio * w.LevelHighRel);
-        w.CapacitorSwingV = capacitor.MaxV - capacitor.MinV;
+        var (capacitorMax, capacitorMin) = RampPieces.RelaxationExtremes(v.OscR * v.OscC, w.LevelHighRel, w.LevelLowRel,
+            edge, w.Ratio * w.LevelHighRel, w.Ratio * w.LevelLowRel, edgeX, edgeExcess);
+        w.CapacitorSwingV = capacitorMax - capacitorMin;
         var tau = v.IntRf * v.IntC;
         w.Ramp.FillDriven(-v.IntRf / v.IntR, tau, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge, w.HighTimeS - edge);
         w.RampMaxRel = w.Ramp.MaxV;
@@ -140,13 +141,13 @@ internal struct Waveform
     private static bool RcRamp(in CircuitValues v, CircuitShape shape, ref Waveform w)
     {
         var beta = w.Ratio;
-        if (!RelaxationCanSwitch(in w, beta, shape.AmpOffsetV) || !RelaxationTimes(in v, ref w))
+        if (!RelaxationCanSwitch(in w, beta, shape.AmpOffsetV) || !RelaxationTimes(in v, ref w, out var edgeX, out var edgeExcess))
             return false;
         // The capacitor, from the falling trip at βL+: it overshoots while the output slews down, and
         // undershoots βL− while it slews up.
         var edge = w.AmpEdgeS;
-        w.Ramp = RampPieces.Driven(1, v.OscR * v.OscC, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge,
-            w.HighTimeS - edge, beta * w.LevelHighRel);
+        w.Ramp.FillRelaxation(v.OscR * v.OscC, w.LevelHighRel, w.LevelLowRel, edge, w.LowTimeS - edge,
+            w.HighTimeS - edge, beta * w.LevelHighRel, beta * w.LevelLowRel, edgeX, edgeExcess);
         w.RampMaxRel = w.Ramp.MaxV;
         w.RampMinRel = w.Ramp.MinV;
         w.CapacitorSwingV = w.RampMaxRel - w.RampMinRel;

@@ -143,4 +143,47 @@ public class RelaxationTimingTests
 
         Assert.True(lowChecked > 1500, $"βL− checked on {lowChecked} designs only");
     }
+
+    [Fact]
+    public void The_capacitor_pinned_to_its_trip_points_is_the_driven_capacitor()
+    {
+        // The figure model builds the capacitor with its held phases ending exactly at βL− and βL+ and the
+        // edges' factors taken from the half periods. Checked against the ramp propagated through every
+        // phase from βL+ (Driven, itself checked above to return to the trip points): same pieces, same
+        // extremes, to rounding.
+        var random = new Random(11);
+        var compared = 0;
+        for (var i = 0; i < 2000; i++)
+        {
+            var high = 1 + 14 * random.NextDouble();
+            var low = -(1 + 14 * random.NextDouble());
+            var beta = 0.05 + 0.9 * random.NextDouble();
+            var rc = 1e-4;
+            var edge = rc * Math.Pow(10, -4 + 4 * random.NextDouble());
+            var (th, tl) = RelaxationTiming.HalfPeriods(rc, beta, high, low, (high - low) / edge, out var x, out var excess);
+            if (double.IsNaN(th))
+                continue;
+            var driven = RampPieces.Driven(1, rc, high, low, edge, tl - edge, th - edge, beta * high);
+            var pinned = default(RampPieces);
+            pinned.FillRelaxation(rc, high, low, edge, tl - edge, th - edge, beta * high, beta * low, x, excess);
+            var scale = high - low;
+            Assert.Equal(driven.Count, pinned.Count);
+            for (var k = 0; k < driven.Count; k++)
+            {
+                Precision.AlmostEqualRelative(driven[k].DurationS, pinned[k].DurationS, 1e-12, "piece duration");
+                Precision.AlmostEqualAbsolute(driven[k].StartV, pinned[k].StartV, 1e-11 * scale, "piece start");
+                Precision.AlmostEqualAbsolute(driven[k].EndV, pinned[k].EndV, 1e-11 * scale, "piece end");
+            }
+
+            Precision.AlmostEqualAbsolute(driven.MaxV, pinned.MaxV, 1e-11 * scale, "maximum");
+            Precision.AlmostEqualAbsolute(driven.MinV, pinned.MinV, 1e-11 * scale, "minimum");
+            // The extremes alone (the three-stage generator's capacitor swing) are the pinned ramp's, exactly.
+            var (max, min) = RampPieces.RelaxationExtremes(rc, high, low, edge, beta * high, beta * low, x, excess);
+            Assert.Equal(pinned.MaxV, max);
+            Assert.Equal(pinned.MinV, min);
+            compared++;
+        }
+
+        Assert.True(compared > 1500, $"compared on {compared} designs only");
+    }
 }
