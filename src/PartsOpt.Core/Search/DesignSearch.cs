@@ -64,7 +64,20 @@ public static class DesignSearch
             }
             // Phase 2 continues phase 1's model: its cuts stay, the designs already accepted are forbidden in it.
             if (!solvers.TryGetValue(variant, out var state))
+            {
                 solvers[variant] = state = (new SelectionSolver(variant.Problem), []);
+                // Until its topology has a design, a variant first tries a quick starting design: accepted by
+                // the engine, it lists at once and sets the cutoff that prunes the models.
+                if (!best.ContainsKey(variant.Topology)
+                    && StartingDesign.Find(variant, DateTime.UtcNow + Min(remaining / Math.Max(left, 1), StartingDesignBudget)) is { } start
+                    && Verify(variant, start, yieldCheck, tracker) is { Accepted: true } verdict)
+                {
+                    state.Accepted.Add(new AcceptedChoice(start, state.Solver.ObjectiveOf(start), verdict));
+                    state.Solver.Exclude(start, variant.RoleSlots);
+                    Record(variant, state.Accepted);
+                    cutoff = Cutoff(found, requirement.MaxResults, best[variant.Topology]);
+                }
+            }
             var run = state.Solver.Run(
                 choice => Verify(variant, choice, yieldCheck, tracker),
                 Math.Max(wanted - state.Accepted.Count, 1),
@@ -75,15 +88,20 @@ public static class DesignSearch
                 cancellation);
             solves += run.Solves;
             state.Accepted.AddRange(run.Accepted);
+            Record(variant, state.Accepted);
+            return run.Complete;
+        }
+
+        void Record(SearchVariant variant, List<AcceptedChoice> accepted)
+        {
             found.RemoveAll(f => f.Variant == variant);
-            found.AddRange(state.Accepted.Select(a => (variant, a)));
-            if (state.Accepted.Count > 0)
+            found.AddRange(accepted.Select(a => (variant, a)));
+            if (accepted.Count > 0)
             {
-                var cheapest = state.Accepted.Min(a => a.Objective);
+                var cheapest = accepted.Min(a => a.Objective);
                 best[variant.Topology] = Math.Min(best.GetValueOrDefault(variant.Topology, long.MaxValue), cheapest);
                 firstCost[variant] = cheapest;
             }
-            return run.Complete;
         }
 
         for (var i = 0; i < variants.Count; i++)
@@ -113,6 +131,11 @@ public static class DesignSearch
         };
         return new SearchOutcome(status, designs, reports, solves, clock.Elapsed, notes);
     }
+
+    /// <summary>Longest a variant spends on its starting design.</summary>
+    public static readonly TimeSpan StartingDesignBudget = TimeSpan.FromMilliseconds(400);
+
+    private static TimeSpan Min(TimeSpan a, TimeSpan b) => a < b ? a : b;
 
     /// <summary>
     /// Designs dearer than both the current K-th design overall and this topology's best so far cannot

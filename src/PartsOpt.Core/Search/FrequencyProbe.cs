@@ -15,7 +15,11 @@ internal static class FrequencyProbe
     public static (string Resistor, string Capacitor) TimingRoles(TopologyKind topology) =>
         topology == TopologyKind.Loop ? (Roles.IntR, Roles.IntC) : (Roles.OscR, Roles.OscC);
 
-    public static (SearchVariant Variant, int[] Choice, DesignJudgement Judgement)? Nearest(SearchVariant variant, DateTime deadlineUtc)
+    /// <summary>
+    /// Plain choices for every role but the timing pair (left at their first option): divider near β = ½,
+    /// Schmitt ratio near ½, balanced reference, largest integrator shunt, widest threshold span.
+    /// </summary>
+    public static int[] PlainChoice(SearchVariant variant)
     {
         var slots = variant.Problem.Slots;
         double Value(int slot, int option) => ((StockChoice)slots[slot].Options[option].Tag!).Value;
@@ -49,7 +53,13 @@ internal static class FrequencyProbe
         Extreme(Roles.CmpRa, largest: false);
         Extreme(Roles.CmpRb, largest: false);
         Extreme(Roles.CmpPot, largest: true);
+        return choice;
+    }
 
+    public static (SearchVariant Variant, int[] Choice, DesignJudgement Judgement)? Nearest(SearchVariant variant, DateTime deadlineUtc)
+    {
+        var slots = variant.Problem.Slots;
+        var choice = PlainChoice(variant);
         var (rRole, cRole) = TimingRoles(variant.Topology);
         int rSlot = variant.SlotOf(rRole), cSlot = variant.SlotOf(cRole);
         var target = variant.Context.Requirement.Frequency.Target;

@@ -155,6 +155,9 @@ internal sealed class SelectionSolver
         return new SelectionRun(ranked, complete, solves, rejections);
     }
 
+    /// <summary>Forbids a design accepted outside the loop (a starting design), so the model looks past it.</summary>
+    public void Exclude(int[] choice, IReadOnlyList<int> slots) => Forbid(choice, slots);
+
     private void Forbid(int[] choice, IReadOnlyList<int> slots) =>
         model.AddBoolOr(slots.Select(s => chosen[s][choice[s]].Not()));
 
