@@ -7,6 +7,7 @@ using PartsOpt.Api.Health;
 using PartsOpt.Api.Keys;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
+using PartsOpt.Api.Planning;
 using PartsOpt.Api.Problems;
 using PartsOpt.Api.Webhooks;
 using PartsOpt.Api.Security;
@@ -92,6 +93,7 @@ app.MapKeys();
 app.MapParts();
 app.MapCircuits();
 app.MapDesignSearches();
+app.MapStockingPlans();
 app.MapWebhooks();
 
 await app.RunAsync();
