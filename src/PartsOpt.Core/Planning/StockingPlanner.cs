@@ -135,7 +135,10 @@ public static class StockingPlanner
         }
         if (!refined)
             notes.Add(Say($"The refinement loop stopped after {rounds} round(s) while still finding cheaper designs: the plan is not proved."));
-        else if (!bounded)
+        foreach (var (pool, r) in pools.Select((p, r) => (p, r)))
+            if (pool is { Outcome.Status: not SearchStatus.Optimal })
+                notes.Add($"{requirements[r].Name}: the search of its candidate designs ran out of time; a longer search time limit may find cheaper designs.");
+        if (refined && !bounded)
             notes.Add("Some requirement has more feasible designs than its pool holds, and a design left out could not be ruled out: the plan is the best found, not proved.");
         if (selection.Rounded)
             notes.Add("Some yearly costs have more than six decimals: the model compared them rounded to 1e-6; the costs reported are exact.");

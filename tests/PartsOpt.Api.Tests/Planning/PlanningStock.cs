@@ -70,6 +70,7 @@ internal static class PlanningStock
             ["packageCostPerLine"] = 5.00,
         },
         ["keepExisting"] = true,
+        ["searchTimeLimitSeconds"] = 60,
     };
 
     /// <summary>Rows in every table a request could write to.</summary>
