@@ -94,6 +94,7 @@ app.MapParts();
 app.MapCircuits();
 app.MapDesignSearches();
 app.MapStockingPlans();
+app.MapWhatIf();
 app.MapWebhooks();
 
 await app.RunAsync();

@@ -33,8 +33,26 @@ public sealed record SeriesCandidates(RoleKind Kind, ESeries Series, double MinV
 /// <summary>Turns ranges of preferred values into candidate stock lines with part numbers of their own.</summary>
 public static class CandidateCatalogue
 {
-    /// <summary>The prefix of every part number the catalogue makes up: "NEW-R-4K7-1%", "NEW-C-2N2-C0G-5%".</summary>
+    /// <summary>The prefix of every part number the catalogue makes up: "NEW-R-4K7-F", "NEW-C-2n2-C0G-J".</summary>
     public const string PartNumberPrefix = "NEW-";
+
+    /// <summary>
+    /// A part number for a value to buy, in the characters a stock part number may hold (letters, digits, '.',
+    /// '_', '-'): prefix, R or C, the IEC 60062 RKM code (µ written u), the dielectric of a capacitor, and the
+    /// IEC 60062 tolerance letter ("T" and the percentage where the tolerance has no letter):
+    /// "NEW-R-4K7-F" is 4.7 kΩ ±1 %, "NEW-C-1u0-X7R-K" is 1 µF X7R ±10 %.
+    /// </summary>
+    public static string PartNumberFor(RoleKind kind, double value, double tolerance, Dielectric? dielectric)
+    {
+        var capacitor = kind == RoleKind.Capacitor;
+        var code = EngineeringValue.FormatRkm(value, capacitor ? Quantity.Capacitance : Quantity.Resistance).Replace('µ', 'u');
+        var letter = ToleranceCode.LetterFor(Values.Tolerance.Symmetric(tolerance)) is { } l
+            ? l.ToString()
+            : "T" + (tolerance * 100).ToString("0.##", CultureInfo.InvariantCulture);
+        return capacitor
+            ? $"{PartNumberPrefix}C-{code}-{dielectric ?? Values.Dielectric.C0G}-{letter}"
+            : $"{PartNumberPrefix}R-{code}-{letter}";
+    }
 
     /// <summary>
     /// Every member of <paramref name="range"/>'s series in its range, as a stock line, leaving out a value
@@ -61,11 +79,7 @@ public static class CandidateCatalogue
                 && p.Tolerance <= range.Tolerance && (!capacitor || p.Dielectric == dielectric));
             if (held)
                 continue;
-            var quantity = capacitor ? Quantity.Capacitance : Quantity.Resistance;
-            var percent = (range.Tolerance * 100).ToString("0.##", CultureInfo.InvariantCulture);
-            var partNumber = capacitor
-                ? $"{PartNumberPrefix}C-{EngineeringValue.FormatRkm(value, quantity)}-{dielectric}-{percent}%"
-                : $"{PartNumberPrefix}R-{EngineeringValue.FormatRkm(value, quantity)}-{percent}%";
+            var partNumber = PartNumberFor(range.Kind, value, range.Tolerance, dielectric);
             parts.Add(new StockPart(partNumber, range.Kind, value, range.Tolerance, range.UnitCost, 0)
             {
                 Dielectric = capacitor ? dielectric : null,
