@@ -175,7 +175,7 @@ public static class StockingPlanner
         var text = proved ? "proved"
             : Say($"best over {(counts.Count == 0 ? 0 : counts.Values.Max())} candidate designs per requirement");
         if (unmet.Count > 0)
-            notes.Add($"Not covered by the plan: {string.Join(", ", unmet.Select(u => u.Requirement))} (no candidate line set meets them).");
+            notes.Add($"Not covered by the plan: {string.Join(", ", unmet.Select(u => u.Requirement))} (see their reasons: proved infeasible from every candidate line, or not decided in time).");
         return new StockingPlan(proved ? PlanOptimality.Proved : PlanOptimality.BestFound, text, planned, dropped, designs, unmet,
             yearly, holding, today, selection.Status.ToString(), rounds, counts, clock.Elapsed, notes);
 
