@@ -8,6 +8,7 @@ using PartsOpt.Api.Health;
 using PartsOpt.Api.Keys;
 using PartsOpt.Api.Parts;
 using PartsOpt.Api.Persistence;
+using PartsOpt.Api.Planning;
 using PartsOpt.Api.Problems;
 using PartsOpt.Api.Webhooks;
 using PartsOpt.Api.Security;
@@ -95,6 +96,8 @@ app.MapCircuits();
 app.MapDesignSearches();
 app.MapBuilds();
 app.MapStockAlerts();
+app.MapStockingPlans();
+app.MapWhatIf();
 app.MapWebhooks();
 
 await app.RunAsync();

@@ -1,0 +1,82 @@
+using PartsOpt.Planning;
+using PartsOpt.Search;
+using PartsOpt.Topologies;
+using static PartsOpt.Tests.Search.TestStock;
+
+namespace PartsOpt.Tests.Planning;
+
+/// <summary>
+/// The line-selection model on a hand-worked case (two requirements, two designs each), status, objective
+/// and solution asserted as a CP-SAT test should. The columns' source designs are not read by the model.
+/// Lines: 0 today's, 1–3 candidates, 4 today's and used by nothing.
+/// A (100 a year): a1 on {0, 1} at 1.00, a2 on {0, 2} at 1.10. B (50 a year): b1 on {3} at 0.50, b2 on {2} at 0.80.
+/// </summary>
+public class LineSelectionModelTests
+{
+    private static (PlanLines Lines, List<IReadOnlyList<DesignColumn>> Columns) Case(bool keepExisting)
+    {
+        var requirement = new SearchRequirement(Supply.Symmetric(12), new Band(1e3, 0.1), new DutyRequirement(0.2, 0.8), 10);
+        var question = new StockingQuestion([new YearlyRequirement("A", requirement, 100), new YearlyRequirement("B", requirement, 50)],
+            new Stock([Resistor("L0", 1e3, 0.01m), Resistor("L4", 4.7e3, 0.01m)], []),
+            new Stock([Resistor("L1", 2.2e3, 0.01m), Resistor("L2", 3.3e3, 0.01m), Resistor("L3", 6.8e3, 0.01m)], []),
+            0m, keepExisting);
+        var lines = new PlanLines(question);
+        int L(string name) => lines.Index[name];
+        DesignColumn Column(int r, decimal perBoard, params string[] used) =>
+            new(r, null!, used.Select(L).Order().ToList(), perBoard, null);
+        return (lines, [
+            [Column(0, 1.00m, "L0", "L1"), Column(0, 1.10m, "L0", "L2")],
+            [Column(1, 0.50m, "L3"), Column(1, 0.80m, "L2")],
+        ]);
+    }
+
+    private static LineSelection Solve(decimal holding, bool keepExisting)
+    {
+        var (lines, columns) = Case(keepExisting);
+        return LineSelectionModel.Solve(columns, [100, 50], lines, holding, keepExisting, TimeSpan.FromSeconds(30), 1, default);
+    }
+
+    private static string[] Names(LineSelection selection, bool keepExisting) =>
+        selection.Lines.Select(l => Case(keepExisting).Lines.PartNumbers[l]).ToArray();
+
+    [Fact]
+    public void CheapDesignsWinWhenHoldingIsCheap()
+    {
+        // a1 + b1: 100 × 1.00 + 50 × 0.50 + 10 × 3 lines = 155 (a1+b2 170, a2+b1 165, a2+b2 170).
+        var selection = Solve(10m, keepExisting: false);
+        Assert.Equal(Google.OrTools.Sat.CpSolverStatus.Optimal, selection.Status);
+        Assert.Equal([1.00m, 0.50m], selection.Chosen.Select(c => c!.PerBoard));
+        Assert.Equal(["L0", "L1", "L3"], Names(selection, false));
+        Assert.Equal(1, selection.Scale); // the yearly amounts 100, 110, 25, 40 and the holding 10 are whole
+        Assert.False(selection.Rounded);
+    }
+
+    [Fact]
+    public void SharedLinesWinWhenHoldingIsDear()
+    {
+        // a2 + b2 share L2: 110 + 40 + 30 × 2 = 210 against a1 + b1: 125 + 30 × 3 = 215.
+        var selection = Solve(30m, keepExisting: false);
+        Assert.Equal(Google.OrTools.Sat.CpSolverStatus.Optimal, selection.Status);
+        Assert.Equal([1.10m, 0.80m], selection.Chosen.Select(c => c!.PerBoard));
+        Assert.Equal(["L0", "L2"], Names(selection, false));
+    }
+
+    [Fact]
+    public void KeptLinesStayEvenUnused()
+    {
+        var selection = Solve(30m, keepExisting: true);
+        Assert.Equal(Google.OrTools.Sat.CpSolverStatus.Optimal, selection.Status);
+        Assert.Equal(["L0", "L4", "L2"], Names(selection, true));
+    }
+
+    [Theory]
+    [InlineData("1.25", 100)]
+    [InlineData("0.005", 1000)]
+    [InlineData("3", 1)]
+    public void TheScaleIsTheSmallestPowerOfTenThatMakesEveryAmountWhole(string amount, long scale) =>
+        Assert.Equal((scale, false), LineSelectionModel.ScaleFor([decimal.Parse(amount, System.Globalization.CultureInfo.InvariantCulture), 2m]));
+
+    [Fact]
+    public void AmountsFinerThanAMillionthAreRounded() =>
+        Assert.Equal((LineSelectionModel.MaxScale, true), LineSelectionModel.ScaleFor([1m / 3m]));
+}
