@@ -52,6 +52,7 @@ public static class DesignSearch
         var finished = new Dictionary<SearchVariant, bool>();
         var firstCost = new Dictionary<SearchVariant, long>();
         var solvers = new Dictionary<SearchVariant, (SelectionSolver Solver, List<AcceptedChoice> Accepted)>();
+        var starts = new Dictionary<SearchVariant, AcceptedChoice>();
         bool RunVariant(SearchVariant variant, int wanted, int left)
         {
             var remaining = deadline - DateTime.UtcNow;
@@ -72,7 +73,9 @@ public static class DesignSearch
                     && StartingDesign.Find(variant, DateTime.UtcNow + Min(remaining / Math.Max(left, 1), StartingDesignBudget)) is { } start
                     && Verify(variant, start, yieldCheck, tracker) is { Accepted: true } verdict)
                 {
-                    state.Accepted.Add(new AcceptedChoice(start, state.Solver.ObjectiveOf(start), verdict));
+                    // Kept apart from the model's list: it need not be the cheapest, so it must not count
+                    // towards the designs the model is asked for.
+                    starts[variant] = new AcceptedChoice(start, state.Solver.ObjectiveOf(start), verdict);
                     state.Solver.Exclude(start, variant.RoleSlots);
                     Record(variant, state.Accepted);
                     cutoff = Cutoff(found, requirement.MaxResults, best[variant.Topology]);
@@ -92,8 +95,9 @@ public static class DesignSearch
             return run.Complete;
         }
 
-        void Record(SearchVariant variant, List<AcceptedChoice> accepted)
+        void Record(SearchVariant variant, List<AcceptedChoice> listed)
         {
+            var accepted = starts.TryGetValue(variant, out var start) ? [.. listed, start] : listed;
             found.RemoveAll(f => f.Variant == variant);
             found.AddRange(accepted.Select(a => (variant, a)));
             if (accepted.Count > 0)

@@ -150,7 +150,6 @@ internal sealed class SelectionSolver
             .ThenBy(a => a.Verdict.FrequencyError)
             .ThenByDescending(a => a.Verdict.Margin)
             .ThenBy(a => string.Join(',', a.Choice))
-            .Take(Math.Max(wanted, 0))
             .ToList();
         return new SelectionRun(ranked, complete, solves, rejections);
     }

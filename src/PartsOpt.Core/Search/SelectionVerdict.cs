@@ -53,7 +53,9 @@ internal sealed record SelectionVerdict(
 internal sealed record AcceptedChoice(int[] Choice, long Objective, SelectionVerdict Verdict);
 
 /// <summary>What a run of the lazy loop produced.</summary>
-/// <param name="Accepted">Accepted assignments in rank order (objective, then tie-breaks, then choice).</param>
+/// <param name="Accepted">Every assignment accepted in the run, in rank order (objective, then tie-breaks,
+/// then choice): ties past the number wanted included, since each is already forbidden in the model and a
+/// later run of the same model would never see it again.</param>
 /// <param name="Complete">True when the solver proved no better or tied assignment was left unexamined:
 /// the list is exactly the top of the feasible set (optimality proved).</param>
 /// <param name="Solves">Number of CP-SAT solves.</param>

@@ -46,21 +46,19 @@ public class StockingPlannerExactnessTests(ITestOutputHelper output)
     }
 
     /// <summary>
-    /// Seed 8 finds a flaw in the design search, not in the planner: over the whole candidate stock the search
-    /// lists one design at 1.766 per board and then 1.776, yet on a smaller stock (without N-C220N) it finds
-    /// another accepted design at 1.766 (osc.r1, cmp.ra, cmp.rb on N-R6). The planner, trusting the list, holds
-    /// one line more than needed (726.400 a year against 724.400). Taking out either N-C220N or N-R8 (both on the
-    /// listed 1.766 design) lets the search list the other one, so a cut learned around the listed design seems
-    /// to remove it. Unskip when the search lists every tie.
+    /// Seed 8 once caught a flaw in the design search: a run asked for one design accepted a second one tied at
+    /// the same cost, forbade it in the model, and then dropped it from its list, so the continued model never
+    /// listed it (1.766 per board, osc.r1, cmp.ra, cmp.rb on N-R6). The planner, trusting the list, held one
+    /// line more than needed (726.400 a year against 724.400).
     /// </summary>
-    [Fact(Skip = "design search misses a tied design on this portfolio (see the summary); for the search's owner")]
+    [Fact]
     public void PlannerAgreesWithEveryLineSubsetOnSeedEight() => PlannerAgreesWithEveryLineSubset(8, true);
 
     /// <summary>
     /// What the planner relies on from the search: a design found on any smaller stock and no dearer than
     /// the K-th design of the whole stock is in the whole stock's list of K (same cost, same lines).
     /// </summary>
-    [Fact(Skip = "design search misses a tied design on this portfolio; for the search's owner")]
+    [Fact]
     public void TheWholeStocksListHoldsEveryDesignNoDearerThanItsLast()
     {
         var question = PlanningPortfolios.Question(8, true);
