@@ -12,6 +12,18 @@ if (args is ["probe-search", .. var rest])
     return;
 }
 
+if (args is ["probe-plan"])
+{
+    // One timed stocking plan of the 20-requirement portfolio, its outcome printed (see probe-search).
+    var clock = System.Diagnostics.Stopwatch.StartNew();
+    var plan = PartsOpt.Planning.StockingPlanner.Plan(StockingPlanBenchmarks.Portfolio());
+    Console.WriteLine(System.FormattableString.Invariant(
+        $"plan: {plan.OptimalityText}; yearly {plan.YearlyCost}; {plan.Lines.Count} lines; {plan.Unmet.Count} unmet; {plan.Rounds} rounds; {clock.Elapsed.TotalSeconds:F1} s"));
+    foreach (var note in plan.Notes.Take(5))
+        Console.WriteLine("  " + note);
+    return;
+}
+
 // In-process: BenchmarkDotNet's generated project cannot build under this repository's central package
 // versions and warnings-as-errors, and in-process measurement is as sound for CPU-bound code like ours.
 var config = DefaultConfig.Instance.AddJob(Job.Default.WithToolchain(InProcessEmitToolchain.Instance).AsDefault());
