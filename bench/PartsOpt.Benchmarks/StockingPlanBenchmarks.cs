@@ -65,7 +65,7 @@ public class StockingPlanBenchmarks
         var requirements = new List<YearlyRequirement>();
         for (var i = 0; i < 20; i++)
         {
-            var frequency = Math.Round(1e3 * Math.Pow(50, random.NextDouble()), -1); // 1 … 50 kHz, log-uniform
+            var frequency = 10 * Math.Round(100 * Math.Pow(50, random.NextDouble())); // 1 … 50 kHz, log-uniform, to 10 Hz
             var supply = (i % 4) switch
             {
                 0 => Supply.Symmetric(12),
