@@ -119,7 +119,7 @@ internal sealed class SearchVariant
     /// <summary>Index of the threshold divider's group in <see cref="Problem"/>, if built.</summary>
     public int? ThresholdGroup { get; }
 
-    /// <summary>A short name for reports: "three-stage, amplifier TL074, comparator LM393".</summary>
+    /// <summary>A short name for reports: "three-stage with OPA-GP-QUAD-A and comparator CMP-OD-QUAD-E".</summary>
     public string Describe() =>
         $"{Topology.ToWireName()} with {Context.Stock.OpAmps[AmplifierIndex].PartNumber}" +
         (ComparatorIndex is { } c ? $" and comparator {Context.Stock.OpAmps[c].PartNumber}" : "") +
