@@ -80,8 +80,8 @@ public static class StockingPlanRules
     {
         const string prefix = "candidates";
         var lines = 0;
-        lines += Range(errors, $"{prefix}.resistor", c.ResistorSeries, c.ResistorRange, c.ResistorTolerance, c.ResistorUnitCost);
-        lines += Range(errors, $"{prefix}.capacitor", c.CapacitorSeries, c.CapacitorRange, c.CapacitorTolerance, c.CapacitorUnitCost);
+        lines += SeriesRangeRules.Count(errors, $"{prefix}.resistor", $"{prefix}.resistorSeries", c.ResistorSeries, c.ResistorRange, c.ResistorTolerance, c.ResistorUnitCost, MaxCandidateLines);
+        lines += SeriesRangeRules.Count(errors, $"{prefix}.capacitor", $"{prefix}.capacitorSeries", c.CapacitorSeries, c.CapacitorRange, c.CapacitorTolerance, c.CapacitorUnitCost, MaxCandidateLines);
         if (c.CapacitorDielectric is { } dielectric && !PartKinds.TryParseDielectric(dielectric, out _))
             errors.Add($"{prefix}.capacitorDielectric", $"The dielectric is one of {PartKinds.DielectricExpected}.");
         errors.Positive($"{prefix}.capacitorVoltageRating", c.CapacitorVoltageRating, required: false);
@@ -116,50 +116,6 @@ public static class StockingPlanRules
             errors.Add($"{prefix}.packageCostPerLine", "Required: the cost of holding one stocked line for a year (0 for none).");
         else if (c.PackageCostPerLine < 0)
             errors.Add($"{prefix}.packageCostPerLine", "May not be negative.");
-    }
-
-    /// <summary>Checks one preferred-value range (resistor or capacitor); returns how many lines it gives.</summary>
-    private static int Range(ErrorList errors, string prefix, string? seriesName, RangeInput? range, double? tolerance, decimal? unitCost)
-    {
-        if (seriesName is null)
-        {
-            if (range is not null)
-                errors.Add($"{prefix}Series", "A range needs its series (\"E24\").");
-            return 0;
-        }
-        ESeries? series = null;
-        try
-        {
-            series = PreferredValues.Parse(seriesName);
-        }
-        catch (ArgumentException unknown)
-        {
-            errors.Add($"{prefix}Series", unknown.Message);
-        }
-        var ok = true;
-        if (range is null)
-        {
-            errors.Add($"{prefix}Range", "Required with a series: {min, max}.");
-            ok = false;
-        }
-        else
-        {
-            errors.Positive($"{prefix}Range.min", range.Min, required: true);
-            errors.Positive($"{prefix}Range.max", range.Max, required: true);
-            ok = range.Min is > 0 and { } min && double.IsFinite(min) && range.Max is > 0 and { } max && double.IsFinite(max);
-            if (ok && range.Min > range.Max)
-            {
-                errors.Add($"{prefix}Range.min", "The range needs min at or below max.");
-                ok = false;
-            }
-        }
-        if (errors.Finite($"{prefix}Tolerance", tolerance) && tolerance is < 0 or >= 1)
-            errors.Add($"{prefix}Tolerance", "A fraction from 0 to below 1 (0.01 for 1 %).");
-        if (unitCost is null)
-            errors.Add($"{prefix}UnitCost", "Required with a series: the price of one piece.");
-        else if (unitCost < 0)
-            errors.Add($"{prefix}UnitCost", "May not be negative.");
-        return ok && series is { } s ? PreferredValues.InRange(s, range!.Min!.Value, range.Max!.Value).Take(MaxCandidateLines + 1).Count() : 0;
     }
 
     /// <summary>The library's question for a validated input and today's stock.</summary>

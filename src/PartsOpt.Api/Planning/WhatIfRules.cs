@@ -23,8 +23,8 @@ public static class WhatIfRules
             errors.Add("series", "Give a series of values to try, candidates, or both.");
         if (input.Series is { } s)
         {
-            count += Range(errors, "series.resistor", s.Resistors, s.ResistorRange, s.ResistorTolerance, s.ResistorUnitCost, "series.resistors");
-            count += Range(errors, "series.capacitor", s.Capacitors, s.CapacitorRange, s.CapacitorTolerance, s.CapacitorUnitCost, "series.capacitors");
+            count += SeriesRangeRules.Count(errors, "series.resistor", "series.resistors", s.Resistors, s.ResistorRange, s.ResistorTolerance, s.ResistorUnitCost, MaxCandidates);
+            count += SeriesRangeRules.Count(errors, "series.capacitor", "series.capacitors", s.Capacitors, s.CapacitorRange, s.CapacitorTolerance, s.CapacitorUnitCost, MaxCandidates);
             if (s.CapacitorDielectric is { } d && !PartKinds.TryParseDielectric(d, out _))
                 errors.Add("series.capacitorDielectric", $"The dielectric is one of {PartKinds.DielectricExpected}.");
             errors.Positive("series.capacitorVoltageRating", s.CapacitorVoltageRating, required: false);
@@ -66,42 +66,6 @@ public static class WhatIfRules
         if (errors.Finite("timeLimitSeconds", input.TimeLimitSeconds) && input.TimeLimitSeconds is <= 0 or > MaxSeconds)
             errors.Add("timeLimitSeconds", $"Above 0 and at most {MaxSeconds} seconds.");
         return errors.ToDictionary();
-    }
-
-    private static int Range(ErrorList errors, string prefix, string? seriesName, Common.RangeInput? range, double? tolerance, decimal? unitCost, string seriesField)
-    {
-        if (seriesName is null)
-            return 0;
-        ESeries? series = null;
-        try
-        {
-            series = PreferredValues.Parse(seriesName);
-        }
-        catch (ArgumentException unknown)
-        {
-            errors.Add(seriesField, unknown.Message);
-        }
-        var ok = range is not null;
-        if (range is null)
-            errors.Add($"{prefix}Range", "Required with a series: {min, max}.");
-        else
-        {
-            errors.Positive($"{prefix}Range.min", range.Min, required: true);
-            errors.Positive($"{prefix}Range.max", range.Max, required: true);
-            ok = range.Min is > 0 and { } min && double.IsFinite(min) && range.Max is > 0 and { } max && double.IsFinite(max);
-            if (ok && range.Min > range.Max)
-            {
-                errors.Add($"{prefix}Range.min", "The range needs min at or below max.");
-                ok = false;
-            }
-        }
-        if (errors.Finite($"{prefix}Tolerance", tolerance) && tolerance is < 0 or >= 1)
-            errors.Add($"{prefix}Tolerance", "A fraction from 0 to below 1.");
-        if (unitCost is null)
-            errors.Add($"{prefix}UnitCost", "Required with a series: the price of one piece.");
-        else if (unitCost < 0)
-            errors.Add($"{prefix}UnitCost", "May not be negative.");
-        return ok && series is { } s ? PreferredValues.InRange(s, range!.Min!.Value, range.Max!.Value).Take(MaxCandidates + 1).Count() : 0;
     }
 
     /// <summary>The candidate lines of a validated input, part numbers made up where none was given.</summary>
