@@ -52,7 +52,7 @@ public static class DesignSearch
         var finished = new Dictionary<SearchVariant, bool>();
         var firstCost = new Dictionary<SearchVariant, long>();
         var solvers = new Dictionary<SearchVariant, (SelectionSolver Solver, List<AcceptedChoice> Accepted)>();
-        var starts = new Dictionary<SearchVariant, AcceptedChoice>();
+        var starts = new Dictionary<SearchVariant, List<AcceptedChoice>>();
         bool RunVariant(SearchVariant variant, int wanted, int left)
         {
             var remaining = deadline - DateTime.UtcNow;
@@ -75,8 +75,15 @@ public static class DesignSearch
                 {
                     // Kept apart from the model's list: it need not be the cheapest, so it must not count
                     // towards the designs the model is asked for.
-                    starts[variant] = new AcceptedChoice(start, state.Solver.ObjectiveOf(start), verdict);
+                    starts[variant] = [new AcceptedChoice(start, state.Solver.ObjectiveOf(start), verdict)];
                     state.Solver.Exclude(start, variant.RoleSlots);
+                    var deadlineOfNeighbours = DateTime.UtcNow + Min(remaining / Math.Max(left, 1), StartingDesignBudget);
+                    foreach (var neighbour in StartingDesign.Neighbours(variant, start, requirement.MaxResults - 1, deadlineOfNeighbours))
+                        if (Verify(variant, neighbour, yieldCheck, tracker) is { Accepted: true } accepted)
+                        {
+                            starts[variant].Add(new AcceptedChoice(neighbour, state.Solver.ObjectiveOf(neighbour), accepted));
+                            state.Solver.Exclude(neighbour, variant.RoleSlots);
+                        }
                     Record(variant, state.Accepted);
                     cutoff = Cutoff(found, requirement.MaxResults, best[variant.Topology]);
                 }
@@ -97,7 +104,7 @@ public static class DesignSearch
 
         void Record(SearchVariant variant, List<AcceptedChoice> listed)
         {
-            var accepted = starts.TryGetValue(variant, out var start) ? [.. listed, start] : listed;
+            var accepted = starts.TryGetValue(variant, out var early) ? [.. listed, .. early] : listed;
             found.RemoveAll(f => f.Variant == variant);
             found.AddRange(accepted.Select(a => (variant, a)));
             if (accepted.Count > 0)

@@ -100,6 +100,46 @@ internal static class StartingDesign
         return best.Choice;
     }
 
+    /// <summary>
+    /// Further accepted designs one role away from <paramref name="start"/>, cheapest changes first, up to
+    /// <paramref name="wanted"/> distinct circuits in all (the start not counted): early designs fill the list
+    /// sooner, and a full list is what lets the cutoff drop whole variants.
+    /// </summary>
+    public static IReadOnlyList<int[]> Neighbours(SearchVariant variant, int[] start, int wanted, DateTime deadlineUtc)
+    {
+        var slots = variant.Problem.Slots;
+        var requirement = variant.Context.Requirement;
+        var found = new List<int[]>();
+        var seen = new HashSet<string> { Key(variant, start) };
+        var judged = 0;
+        var moves = Enumerable.Range(0, variant.RoleNames.Count)
+            .SelectMany(slot => Enumerable.Range(0, slots[slot].Options.Count).Where(o => o != start[slot]).Select(o => (slot, o)))
+            .OrderBy(m => Cost(variant, start, m.slot, m.o))
+            .ThenBy(m => m.slot)
+            .ThenBy(m => m.o);
+        foreach (var (slot, option) in moves)
+        {
+            if (found.Count >= wanted || (++judged % 32 == 0 && DateTime.UtcNow >= deadlineUtc))
+                break;
+            var trial = (int[])start.Clone();
+            trial[slot] = option;
+            if (!variant.Problem.StockSuffices(trial) || !seen.Add(Key(variant, trial)))
+                continue;
+            try
+            {
+                if (DesignJudge.Judge(requirement, variant.DesignOf(trial)).Accepted)
+                    found.Add(trial);
+            }
+            catch (DesignValidationException)
+            {
+                // Not a design: skip it.
+            }
+        }
+        return found;
+    }
+
+    private static string Key(SearchVariant variant, int[] choice) => string.Join(',', choice.Take(variant.RoleNames.Count));
+
     private static decimal Cost(SearchVariant variant, int[] choice, int slot, int option)
     {
         var trial = (int[])choice.Clone();

@@ -194,3 +194,30 @@ public class StartingDesignTests
         Assert.Null(StartingDesign.Find(variant, DateTime.UtcNow.AddSeconds(30)));
     }
 }
+
+/// <summary>The designs one role away from a starting design: each accepted by the engine, covered by the stock, distinct.</summary>
+public class StartingNeighbourTests
+{
+    [Fact]
+    public void Neighbours_are_distinct_accepted_designs_one_role_from_the_start()
+    {
+        var requirement = TestStock.PwmAt20Kilohertz(TopologyKind.ThreeStage);
+        var context = new SearchContext(requirement, TestStock.Stockroom());
+        var (variant, start) = VariantPlanner.Plan(context, TopologyKind.ThreeStage).Variants
+            .Select(v => (v, StartingDesign.Find(v, DateTime.UtcNow.AddSeconds(30))))
+            .First(p => p.Item2 is not null);
+
+        var neighbours = StartingDesign.Neighbours(variant, start!, 5, DateTime.UtcNow.AddSeconds(30));
+
+        Assert.InRange(neighbours.Count, 1, 5);
+        var roles = variant.RoleNames.Count;
+        var keys = neighbours.Select(n => string.Join(',', n.Take(roles))).Append(string.Join(',', start!.Take(roles))).ToList();
+        Assert.Equal(keys.Count, keys.Distinct().Count());
+        foreach (var neighbour in neighbours)
+        {
+            Assert.True(DesignJudge.Judge(requirement, variant.DesignOf(neighbour)).Accepted);
+            Assert.True(variant.Problem.StockSuffices(neighbour));
+            Assert.Equal(1, Enumerable.Range(0, roles).Count(s => neighbour[s] != start![s]));
+        }
+    }
+}
