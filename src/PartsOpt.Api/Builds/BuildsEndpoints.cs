@@ -1,3 +1,4 @@
+using PartsOpt.Api.Common;
 using System.Globalization;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.EntityFrameworkCore;
@@ -68,17 +69,14 @@ public static class BuildsEndpoints
             else
                 errors.Add("status", $"Unknown status '{status}': expected one of {string.Join(", ", BuildRules.StatusNames)}.");
         }
-        if (page is < 1)
-            errors.Add("page", "Pages count from 1.");
-        if (pageSize is < 1 or > PartQueries.MaxPageSize)
-            errors.Add("pageSize", $"Between 1 and {PartQueries.MaxPageSize}.");
+        Paging.Check(errors, page, pageSize);
         if (errors.ToDictionary() is { Count: > 0 } problems)
             return TypedResults.ValidationProblem(problems);
 
         var query = db.Builds.AsNoTracking();
         if (statusFilter is { } sf)
             query = query.Where(b => b.Status == sf);
-        var size = pageSize ?? PartQueries.DefaultPageSize;
+        var size = pageSize ?? Paging.DefaultSize;
         var number = page ?? 1;
         var total = await query.CountAsync(ct);
         var rows = await query.OrderByDescending(b => b.Id).Skip((number - 1) * size).Take(size)

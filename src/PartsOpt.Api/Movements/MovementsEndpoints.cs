@@ -1,3 +1,4 @@
+using PartsOpt.Api.Common;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.Parts;
@@ -35,16 +36,13 @@ public static class MovementsEndpoints
     private static async Task<Results<Ok<PagedList<MovementDto>>, ValidationProblem, ProblemHttpResult>> List(
         string partNumber, int? page, int? pageSize, PartsOptDbContext db, CancellationToken ct)
     {
-        if (page is < 1 || pageSize is < 1 or > PartQueries.MaxPageSize)
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]>
-            {
-                [page is < 1 ? "page" : "pageSize"] = [$"page ≥ 1 and pageSize between 1 and {PartQueries.MaxPageSize}."],
-            });
+        if (Paging.Problems(page, pageSize) is { } paging)
+            return TypedResults.ValidationProblem(paging);
         var partId = await db.Parts.Where(p => p.PartNumber == partNumber).Select(p => (int?)p.Id).SingleOrDefaultAsync(ct);
         if (partId is null)
             return PartsEndpoints.NoSuchPart(partNumber);
 
-        var size = pageSize ?? PartQueries.DefaultPageSize;
+        var size = pageSize ?? Paging.DefaultSize;
         var number = page ?? 1;
         var rows = db.Movements.AsNoTracking().Where(m => m.PartId == partId);
         var total = await rows.CountAsync(ct);

@@ -1,5 +1,6 @@
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.EntityFrameworkCore;
+using PartsOpt.Api.Common;
 using PartsOpt.Api.Persistence;
 using PartsOpt.Values;
 
@@ -8,9 +9,6 @@ namespace PartsOpt.Api.Parts;
 /// <summary>GET /api/v1/parts: filter, order by part number, page; stock figures summed from the ledger.</summary>
 public static class PartQueries
 {
-    public const int DefaultPageSize = 50;
-    public const int MaxPageSize = 200;
-
     /// <param name="kind">resistor, capacitor, potentiometer or op-amp.</param>
     /// <param name="min">Lowest main value, SI or with a prefix/RKM code ("1k", "4k7", "100n"); needs a kind.</param>
     /// <param name="max">Highest main value, as <paramref name="min"/>.</param>
@@ -34,10 +32,7 @@ public static class PartQueries
         }
         var minValue = RangeEnd("min", min, kindFilter, errors);
         var maxValue = RangeEnd("max", max, kindFilter, errors);
-        if (page is < 1)
-            errors.Add("page", "Pages count from 1.");
-        if (pageSize is < 1 or > MaxPageSize)
-            errors.Add("pageSize", $"Between 1 and {MaxPageSize}.");
+        Paging.Check(errors, page, pageSize);
         if (errors.ToDictionary() is { Count: > 0 } problems)
             return TypedResults.ValidationProblem(problems);
 
@@ -67,7 +62,7 @@ public static class PartQueries
                 || EF.Functions.Like(p.Description, pattern, "\\"));
         }
 
-        var size = pageSize ?? DefaultPageSize;
+        var size = pageSize ?? Paging.DefaultSize;
         var number = page ?? 1;
         var total = await query.CountAsync(ct);
         var rows = await query.OrderBy(p => p.PartNumber)

@@ -1,3 +1,4 @@
+using PartsOpt.Api.Common;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.Keys;
@@ -33,17 +34,14 @@ public static class StockAlerts
         int? page, int? pageSize, PartsOptDbContext db, CancellationToken ct)
     {
         var errors = new ErrorList();
-        if (page is < 1)
-            errors.Add("page", "Pages count from 1.");
-        if (pageSize is < 1 or > PartQueries.MaxPageSize)
-            errors.Add("pageSize", $"Between 1 and {PartQueries.MaxPageSize}.");
+        Paging.Check(errors, page, pageSize);
         if (errors.ToDictionary() is { Count: > 0 } problems)
             return TypedResults.ValidationProblem(problems);
 
         var alerts = db.Parts.AsNoTracking()
             .Select(p => new { Part = p, OnHand = p.Movements.Sum(m => m.OnHandChange), Reserved = p.Movements.Sum(m => m.ReservedChange) })
             .Where(r => r.OnHand - r.Reserved <= r.Part.ReorderLevel);
-        var size = pageSize ?? PartQueries.DefaultPageSize;
+        var size = pageSize ?? Paging.DefaultSize;
         var number = page ?? 1;
         var total = await alerts.CountAsync(ct);
         var rows = await alerts

@@ -1,3 +1,4 @@
+using PartsOpt.Api.Common;
 using Microsoft.AspNetCore.Http.HttpResults;
 using Microsoft.EntityFrameworkCore;
 using PartsOpt.Api.Movements;
@@ -92,15 +93,12 @@ public static class WebhooksEndpoints
     private static async Task<Results<Ok<PagedList<DeliveryAttemptDto>>, ValidationProblem, ProblemHttpResult>> Deliveries(
         long id, int? page, int? pageSize, PartsOptDbContext db, CancellationToken ct)
     {
-        if (page is < 1 || pageSize is < 1 or > PartQueries.MaxPageSize)
-            return TypedResults.ValidationProblem(new Dictionary<string, string[]>
-            {
-                [page is < 1 ? "page" : "pageSize"] = [$"page ≥ 1 and pageSize between 1 and {PartQueries.MaxPageSize}."],
-            });
+        if (Paging.Problems(page, pageSize) is { } paging)
+            return TypedResults.ValidationProblem(paging);
         if (!await db.Subscriptions.AnyAsync(s => s.Id == id, ct))
             return NoSuchSubscription(id);
 
-        var size = pageSize ?? PartQueries.DefaultPageSize;
+        var size = pageSize ?? Paging.DefaultSize;
         var number = page ?? 1;
         var attempts = db.DeliveryAttempts.AsNoTracking().Where(a => a.Delivery!.SubscriptionId == id);
         var total = await attempts.CountAsync(ct);
