@@ -109,15 +109,9 @@ public class RelaxationTimingTests
         // exact ramp and exponential pieces. Driven through those times from βL+ it must reach βL− just as
         // the output starts its rising edge and βL+ again after a whole period; the periodic solution (no
         // start given) must be the same wave.
-        var random = new Random(7);
         var lowChecked = 0;
-        for (var i = 0; i < 2000; i++)
+        foreach (var (high, low, beta, rc, edge) in RandomOscillators(seed: 7, count: 2000))
         {
-            var high = 1 + 14 * random.NextDouble();
-            var low = -(1 + 14 * random.NextDouble());
-            var beta = 0.05 + 0.9 * random.NextDouble();
-            var rc = 1e-4;
-            var edge = rc * Math.Pow(10, -4 + 4 * random.NextDouble());
             var (th, tl) = RelaxationTiming.HalfPeriods(rc, beta, high, low, (high - low) / edge);
             if (double.IsNaN(th))
                 continue;
@@ -151,15 +145,9 @@ public class RelaxationTimingTests
         // edges' factors taken from the half periods. Checked against the ramp propagated through every
         // phase from βL+ (Driven, itself checked above to return to the trip points): same pieces, same
         // extremes, to rounding.
-        var random = new Random(11);
         var compared = 0;
-        for (var i = 0; i < 2000; i++)
+        foreach (var (high, low, beta, rc, edge) in RandomOscillators(seed: 11, count: 2000))
         {
-            var high = 1 + 14 * random.NextDouble();
-            var low = -(1 + 14 * random.NextDouble());
-            var beta = 0.05 + 0.9 * random.NextDouble();
-            var rc = 1e-4;
-            var edge = rc * Math.Pow(10, -4 + 4 * random.NextDouble());
             var (th, tl) = RelaxationTiming.HalfPeriods(rc, beta, high, low, (high - low) / edge, out var x, out var excess);
             if (double.IsNaN(th))
                 continue;
@@ -185,5 +173,19 @@ public class RelaxationTimingTests
         }
 
         Assert.True(compared > 1500, $"compared on {compared} designs only");
+    }
+
+    /// <summary>Seeded random oscillators: levels 1 … 15 V either side, β 0.05 … 0.95, RC 0.1 ms, edges 1e-4 … 1 of RC.</summary>
+    private static IEnumerable<(double High, double Low, double Beta, double Rc, double Edge)> RandomOscillators(int seed, int count)
+    {
+        var random = new Random(seed);
+        for (var i = 0; i < count; i++)
+        {
+            var high = 1 + 14 * random.NextDouble();
+            var low = -(1 + 14 * random.NextDouble());
+            var beta = 0.05 + 0.9 * random.NextDouble();
+            const double rc = 1e-4;
+            yield return (high, low, beta, rc, rc * Math.Pow(10, -4 + 4 * random.NextDouble()));
+        }
     }
 }
