@@ -80,13 +80,14 @@ internal static class FrequencyRelaxation
         else
         {
             // Loop: T = k·τ·g(ref) + c(ref); with a single supply g and c move with the reference pair.
-            var gains = new List<double>();
+            var dualGain = double.NaN; // ln g of the one reference a dual supply has
             var members = new List<(double X, double Low, double High)>();
             double cMin = double.PositiveInfinity, cMax = double.NegativeInfinity;
             foreach (var r in referenceTuples)
             {
                 var (g, c) = levels.LoopFactors(ReferenceOf(r), edge);
-                gains.Add(double.IsFinite(g) && g > 0 ? Math.Log(g) : double.NaN);
+                if (!supply.IsSingle)
+                    dualGain = double.IsFinite(g) && g > 0 ? Math.Log(g) : double.NaN;
                 if (double.IsFinite(g) && g > 0)
                 {
                     (cMin, cMax) = (Math.Min(cMin, c), Math.Max(cMax, c));
@@ -105,7 +106,7 @@ internal static class FrequencyRelaxation
                 buckets.Add(Bucketise([new LogTerm(referenceSlots[0], -1), new LogTerm(referenceSlots[1], 1)], members));
                 terms.Add(new LogTerm(0, 1, TermKind.Buckets));
             }
-            var gainShift = supply.IsSingle ? 0 : gains[0];
+            var gainShift = supply.IsSingle ? 0 : dualGain;
             if (double.IsNaN(gainShift) || double.IsPositiveInfinity(cMin))
                 bounds.Add(Impossible(FigureNames.Frequency));
             else

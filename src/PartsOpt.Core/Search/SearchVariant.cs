@@ -78,14 +78,12 @@ internal sealed class SearchVariant
             decimal Draws(IEnumerable<PartDraw> draws) =>
                 draws.Sum(d => d.PerBoard * quantity * (Problem.Lines[d.Line].UnitCost + costs.PlacementCost));
             var kinds = RoleNames.Select(Roles.KindOf).Distinct().Count();
-            var lines = FixedDraws().Select(d => d.Line).Distinct().Count() + kinds;
-            return Draws(FixedDraws())
+            var lines = Problem.FixedDraws.Select(d => d.Line).Distinct().Count() + kinds;
+            return Draws(Problem.FixedDraws)
                 + Problem.Slots.Sum(slot => slot.Options.Count == 0 ? 0 : slot.Options.Min(o => Draws(o.Draws)))
                 + lines * costs.LineItemSetupCost;
         }
     }
-
-    private IReadOnlyList<PartDraw> FixedDraws() => Problem.FixedDraws;
 
     public SearchContext Context { get; }
     public TopologyKind Topology { get; }
