@@ -63,9 +63,20 @@ internal static class FrequencyRelaxation
         {
             int r1 = Slot(Roles.OscR1), r2 = Slot(Roles.OscR2);
             var references = referenceTuples.Select(ReferenceOf).Distinct().Order().ToArray();
-            if (DividerBuckets(slots, r1, r2, references, levels, amp.InputOffsetV) is { } divider)
+            // Each half period is one whole slewing edge plus R·C times a non-negative log
+            // (RelaxationTiming.HalfPeriods), so no relaxation oscillator of this amplifier is faster than 1/(2·t_e).
+            if (2 * edge > periodMax * (1 + 1e-9))
+                bounds.Add(Impossible(FigureNames.Frequency));
+            else if (DividerBuckets(slots, r1, r2, references, levels, amp.InputOffsetV) is { } divider)
             {
                 buckets.Add(divider.Buckets);
+                // Each slewing edge must end before the capacitor reaches the other threshold, or no period
+                // exists: R·C > t_e·(1 − β)·max(L+, −L−)/(L+ − L−) (see EdgeCompletes), a second factor over
+                // the same ratio buckets.
+                buckets.Add(divider.EdgeBuckets);
+                bounds.Add(new LogBound("oscillator can switch",
+                    [new LogTerm(Slot(Roles.OscR), 1), new LogTerm(Slot(Roles.OscC), 1), new LogTerm(1, -1, TermKind.Buckets)],
+                    LogOrMinusInfinity(edge) - Margin, double.PositiveInfinity));
                 // The slewing edges add between a·2·te and b·2·te to R·C·k (RelaxationTiming.EdgeMultipliers).
                 // The largest b of any stocked divider bounds R·C·k from below; from above, a = 1/2, the proved
                 // lower multiplier, keeps the bound a relaxation whatever the divider.
@@ -135,6 +146,26 @@ internal static class FrequencyRelaxation
             }
         }
 
+        // The output current checks: the amplifier's output drives at least level/R into the timing resistor
+        // (max(L+ − βL−, βL+ − L−) ≥ max(L+, −L−)) and into the integrator's input resistor, level the larger
+        // saturation level about the reference: a floor on each resistor alone, weakest reference taken.
+        var leastLevel = referenceTuples.Select(ReferenceOf).Distinct()
+            .Where(r => levels.HighRel(r) > 0 && levels.LowRel(r) < 0)
+            .Select(r => Math.Max(levels.HighRel(r), -levels.LowRel(r)))
+            .DefaultIfEmpty(double.NaN).Min();
+        if (leastLevel > 0 && amp.MaxOutputCurrentA > 0 && double.IsFinite(amp.MaxOutputCurrentA))
+        {
+            string[] driven = variant.Topology switch
+            {
+                TopologyKind.ThreeStage => [Roles.OscR, Roles.IntR],
+                TopologyKind.RcRamp => [Roles.OscR],
+                _ => [Roles.IntR],
+            };
+            foreach (var role in driven)
+                bounds.Add(new LogBound("output current", [new LogTerm(Slot(role), 1)],
+                    Math.Log(leastLevel / amp.MaxOutputCurrentA) - Margin, double.PositiveInfinity));
+        }
+
         return new Result(buckets, bounds);
     }
 
@@ -146,7 +177,7 @@ internal static class FrequencyRelaxation
     /// supply there is one reference and the two agree). Pairs that cannot switch even about that most
     /// favourable reference are left out. Null when no stocked pair lets the oscillator switch.
     /// </summary>
-    internal static (RatioBuckets Buckets, double UpperEdgeMultiplier)? DividerBuckets(
+    internal static (RatioBuckets Buckets, RatioBuckets EdgeBuckets, double UpperEdgeMultiplier)? DividerBuckets(
         IReadOnlyList<SelectionSlot> slots, int r1, int r2, IReadOnlyList<double> references, Levels levels, double offsetV)
     {
         // References where both levels lie on either side: the only ones an oscillator can switch about.
@@ -156,6 +187,7 @@ internal static class FrequencyRelaxation
         var centre = usable.MinBy(r => Math.Abs(Math.Log(-levels.LowRel(r) / levels.HighRel(r))));
         double Factor(double beta, double reference) => Math.Log(levels.PeriodFactor(beta, reference, 0));
         var members = new List<(double X, double Low, double High)>();
+        var edgeMembers = new List<(double X, double Low, double High)>();
         var betaMin = 1.0;
         foreach (var a in slots[r1].Options)
             foreach (var b in slots[r2].Options)
@@ -168,6 +200,12 @@ internal static class FrequencyRelaxation
                     || beta * (levels.HighRel(centre) - levels.LowRel(centre)) < CircuitChecks.HysteresisOffsets * offsetV * (1 - 1e-9))
                     continue;
                 members.Add((x, Factor(beta, centre), Math.Max(Factor(beta, usable[0]), Factor(beta, usable[^1]))));
+                // max(L+, −L−) is least about the centre reference, where the loose bound is weakest; with one
+                // reference (a dual supply) the sharp bound holds for β ≥ 1/2.
+                var edgeFactor = Math.Log(usable.Length == 1
+                    ? EdgeCompletesSharp(beta, levels.HighRel(centre), levels.LowRel(centre))
+                    : EdgeCompletes(beta, levels.HighRel(centre), levels.LowRel(centre)));
+                edgeMembers.Add((x, edgeFactor, edgeFactor));
                 betaMin = Math.Min(betaMin, beta);
             }
         if (members.Count == 0)
@@ -178,7 +216,54 @@ internal static class FrequencyRelaxation
             .Where(double.IsFinite)
             .Append(1.0)
             .Max();
-        return (Bucketise([new LogTerm(r1, -1), new LogTerm(r2, 1)], members), upper);
+        return (Bucketise([new LogTerm(r1, -1), new LogTerm(r2, 1)], members),
+            Bucketise([new LogTerm(r1, -1), new LogTerm(r2, 1)], edgeMembers), upper);
+    }
+
+    /// <summary>
+    /// The least R·C/t_e at which both slewing edges of the relaxation oscillator can complete: with
+    /// u = t_e/(R·C) and x = 1 − e^(−u), the engine's half period exists only when
+    /// D = β·S − S·(u − x)/u + (1 − β)·near·x &gt; 0 (S = L+ − L−, near + far = S), that is
+    /// x·(S/u + (1 − β)·near) &gt; (1 − β)·S; with x ≤ 1 this needs S/u &gt; (1 − β)·far, so
+    /// R·C &gt; t_e·(1 − β)·far/S for far = L+ and far = −L−. Proved, not sharp (loose where β nears 1).
+    /// </summary>
+    internal static double EdgeCompletes(double beta, double levelHigh, double levelLow) =>
+        (1 - beta) * Math.Max(levelHigh, -levelLow) / (levelHigh - levelLow);
+
+    /// <summary>
+    /// A sharper <see cref="EdgeCompletes"/> for β ≥ 1/2: 1/u* with u* the edge length (in time constants)
+    /// beyond which D ≤ 0 for one of the half periods. With c = (1 − β)·near, q(u) = x·(S/u + c) falls
+    /// with u when c &lt; S/2 (q′ &lt; 0 ⟺ c·u² &lt; S·(e^u − 1 − u), and e^u − 1 − u ≥ u²/2), which holds for
+    /// β ≥ 1/2 since near &lt; S; q(0+) = S &gt; (1 − β)·S and q(∞) = c &lt; (1 − β)·S, so D &gt; 0 exactly for
+    /// u &lt; u*, found by bisection and rounded up (the bound stays a relaxation). Below β = 1/2 the
+    /// proved loose bound.
+    /// </summary>
+    internal static double EdgeCompletesSharp(double beta, double levelHigh, double levelLow)
+    {
+        var loose = EdgeCompletes(beta, levelHigh, levelLow);
+        if (beta < 0.5)
+            return loose;
+        var swing = levelHigh - levelLow;
+        double Crossing(double near)
+        {
+            var c = (1 - beta) * near;
+            var target = (1 - beta) * swing;
+            bool Completes(double u) => -Accurate.ExpM1(-u) * (swing / u + c) > target;
+            double low = 1e-12, high = 1;
+            while (Completes(high) && high < 1e12)
+                high *= 2;
+            for (var i = 0; i < 200 && high - low > 1e-12 * high; i++)
+            {
+                var mid = 0.5 * (low + high);
+                if (Completes(mid))
+                    low = mid;
+                else
+                    high = mid;
+            }
+            return high * (1 + 1e-9);
+        }
+        var limit = Math.Min(Crossing(levelHigh), Crossing(-levelLow));
+        return Math.Max(loose, 1 / limit);
     }
 
     /// <summary>

@@ -187,8 +187,31 @@ internal sealed class SearchVariant
             or "output current (oscillator)" or "output current (schmitt)" or "output current (integrator)"
             => Slots(RampRoles()),
         _ when check.StartsWith("non-polarised (", StringComparison.Ordinal) && SlotOf(check[15..^1]) is >= 0 and var s => [s],
+        _ when check.StartsWith("timing dielectric (", StringComparison.Ordinal) && SlotOf(check[19..^1]) is >= 0 and var s => [s],
+        "output current (comparator)" when SlotOf(Roles.CmpPullup) is >= 0 and var pullup => [pullup],
+        _ when check.StartsWith("power (", StringComparison.Ordinal) => ScopeOfRating(check[7..^1]),
+        _ when check.StartsWith("voltage (", StringComparison.Ordinal) => ScopeOfRating(check[9..^1]),
         _ => RoleSlots,
     };
+
+    /// <summary>
+    /// The slots a part's power or voltage rating check depends on: the part itself and what sets the
+    /// voltage across it. The square-wave generator's parts see its own waveform, the integrator's the
+    /// ramp, the threshold divider only the supply, the pull-up only the comparator's output.
+    /// </summary>
+    private IReadOnlyList<int> ScopeOfRating(string role)
+    {
+        string[] divider = [Roles.CmpRa, Roles.CmpPot, Roles.CmpRb];
+        if (SlotOf(role) < 0)
+            return RoleSlots;
+        if (FrequencyRoles().Contains(role))
+            return Slots(FrequencyRoles());
+        if (RampRoles().Contains(role))
+            return Slots(RampRoles());
+        if (role == Roles.CmpPullup)
+            return [SlotOf(role)];
+        return divider.Contains(role) ? Slots(divider) : RoleSlots;
+    }
 
     /// <summary>
     /// The strongest valid no-good cut for a rejected design: the smallest scope among its misses; for a
@@ -197,10 +220,7 @@ internal sealed class SearchVariant
     /// </summary>
     public SelectionVerdict Rejection(int[] choice, DesignJudgement judgement)
     {
-        var scopes = judgement.Missed.Where(m => m is not (MissedTarget.DutyRange or MissedTarget.Check)).Select(ScopeOf)
-            .Concat(judgement.FailedChecks.Select(c => ScopeOfCheck(c, judgement)))
-            .Append(RoleSlots);
-        var best = scopes.MinBy(scope => scope.Count)!;
+        var best = PlainScope(judgement);
         var verdict = new SelectionVerdict(false, best, judgement.FrequencyError, judgement.Margin,
             string.Join("; ", judgement.Reasons), judgement);
         if (best.Count > 2 && MonotoneCut(choice, judgement) is { } monotone)
@@ -215,6 +235,17 @@ internal sealed class SearchVariant
         var escape = Thresholds.Escape(choice, judgement.MissesLowDuty, judgement.MissesHighDuty);
         return verdict with { CutSlots = ramp, CutGroup = ThresholdGroup, CutEscape = escape };
     }
+
+    /// <summary>
+    /// The fewest slots that decide one of a rejected design's failures on their own (the duty range
+    /// aside, which also depends on the threshold divider): every design sharing their choices fails too.
+    /// All role slots when no failure is confined.
+    /// </summary>
+    public IReadOnlyList<int> PlainScope(DesignJudgement judgement) =>
+        judgement.Missed.Where(m => m is not (MissedTarget.DutyRange or MissedTarget.Check)).Select(ScopeOf)
+            .Concat(judgement.FailedChecks.Select(c => ScopeOfCheck(c, judgement)))
+            .Append(RoleSlots)
+            .MinBy(scope => scope.Count)!;
 
     /// <summary>
     /// A cut for a failed check that falls as one resistor grows, everything else in its scope held: the

@@ -35,7 +35,7 @@ public class RelaxationSoundnessTests
             ? values.SelectMany(top => values.Select(bottom => 12 * bottom / (top + bottom))).Distinct().Order().ToArray()
             : [0.0];
 
-        var (buckets, upperMultiplier) = FrequencyRelaxation.DividerBuckets([slot, slot], 0, 1, references, levels, amp.InputOffsetV)!.Value;
+        var (buckets, _, upperMultiplier) = FrequencyRelaxation.DividerBuckets([slot, slot], 0, 1, references, levels, amp.InputOffsetV)!.Value;
 
         Assert.True(buckets.Edges.Count <= FrequencyRelaxation.MaxBuckets);
         var checkedPairs = 0;
@@ -155,5 +155,84 @@ public class RelaxationSoundnessTests
                     $"{variant.Describe()}: {variant.Problem.CostOf(choice).TotalBuildCost} below {variant.LowerBound}");
             }
         }
+    }
+
+    /// <summary>
+    /// Two bounds read off the engine's slewing relaxation oscillator (RelaxationTiming.HalfPeriods): each
+    /// half period is a whole edge t_e plus R·C times a non-negative log, so T ≥ 2·t_e; and an edge can only
+    /// complete when R·C ≥ t_e·EdgeCompletesSharp (proved loosely for every β, sharply by bisection for
+    /// β ≥ 1/2). Checked on random levels, ratios, time constants and slew rates.
+    /// </summary>
+    [Fact]
+    public void Slewing_oscillator_bounds_hold_wherever_the_engine_finds_a_period()
+    {
+        var random = new Random(11);
+        int periods = 0, nearEdge = 0;
+        for (var trial = 0; trial < 200_000; trial++)
+        {
+            var high = 0.5 + 19.5 * random.NextDouble();
+            var low = -(0.5 + 19.5 * random.NextDouble());
+            var beta = 0.01 + 0.98 * random.NextDouble();
+            var slew = Math.Pow(10, 4 + 4 * random.NextDouble());
+            var edge = (high - low) / slew;
+            var rc = edge * Math.Pow(10, -3 + 5 * random.NextDouble());
+            var (up, down) = RelaxationTiming.HalfPeriods(rc, beta, high, low, slew);
+            if (!double.IsFinite(up) || !double.IsFinite(down))
+                continue;
+            periods++;
+            Assert.True(up + down >= 2 * edge * (1 - 1e-12), $"period {up + down} below two edges {2 * edge}");
+            var least = edge * FrequencyRelaxation.EdgeCompletesSharp(beta, high, low);
+            Assert.True(rc >= least * (1 - 1e-9), $"β {beta}, levels {high}/{low}: a period at R·C = {rc}, below the bound {least}");
+            Assert.True(FrequencyRelaxation.EdgeCompletesSharp(beta, high, low) >= FrequencyRelaxation.EdgeCompletes(beta, high, low));
+            if (rc < 1.01 * least)
+                nearEdge++;
+        }
+        Assert.True(periods > 50_000, $"only {periods} periods");
+        // The sharp bound is tight: periods exist within 1 % of it (for β ≥ 1/2 it is where D turns).
+        Assert.True(nearEdge > 0, "no period within 1 % of the bound: it is not sharp");
+    }
+
+    /// <summary>
+    /// The output current floors (the amplifier drives at least level/R into the timing resistor and the
+    /// integrator's input resistor): on random assignments of every variant, a design whose output current
+    /// checks all pass satisfies every floor.
+    /// </summary>
+    [Fact]
+    public void Output_current_floors_hold_for_every_design_whose_current_checks_pass()
+    {
+        var requirement = TestStock.PwmAt20Kilohertz();
+        var context = new SearchContext(requirement, TestStock.Stockroom());
+        var random = new Random(5);
+        var variants = Enum.GetValues<TopologyKind>().SelectMany(t => VariantPlanner.Plan(context, t).Variants).ToList();
+        int passing = 0, floors = 0;
+        foreach (var variant in variants)
+        {
+            var bounds = variant.Problem.Bounds.Where(b => b.Figure == "output current").ToList();
+            floors += bounds.Count;
+            for (var trial = 0; trial < 400; trial++)
+            {
+                var choice = variant.Problem.Slots.Select(s => random.Next(s.Options.Count)).ToArray();
+                DesignJudgement judgement;
+                try
+                {
+                    judgement = DesignJudge.Judge(requirement, variant.DesignOf(choice));
+                }
+                catch (DesignValidationException)
+                {
+                    continue;
+                }
+                var waveform = judgement.Evaluation.Figure(FigureNames.Frequency) is { } f && double.IsFinite(f);
+                if (!waveform || judgement.FailedChecks.Any(c => c.StartsWith("output current", StringComparison.Ordinal)))
+                    continue;
+                passing++;
+                foreach (var bound in bounds)
+                {
+                    var slot = bound.Terms.Single().Index;
+                    Assert.True(variant.Problem.Slots[slot].Options[choice[slot]].LogValue >= bound.Lower,
+                        $"{variant.Describe()}: {variant.RoleNames[slot]} passes the engine's current check below its floor");
+                }
+            }
+        }
+        Assert.True(floors > 0 && passing > 100, $"{floors} floors, {passing} designs passing the current checks");
     }
 }
