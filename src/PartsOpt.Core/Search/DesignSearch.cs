@@ -40,8 +40,84 @@ public static class DesignSearch
         var plans = topologies.Select(t => VariantPlanner.Plan(context, t)).ToList();
         var found = new List<(SearchVariant Variant, AcceptedChoice Choice)>();
         var tracker = new MissTracker();
-        var solves = 0;
         var complete = plans.ToDictionary(p => p.Topology, _ => true);
+        var solves = options.Method == SearchMethod.BranchAndBound
+            ? Enumerate(plans, found, complete, yieldCheck, tracker, deadline, cancellation)
+            : Model(plans, found, complete, yieldCheck, tracker, deadline, options.Seed, cancellation);
+
+        var designs = DesignAssembler.Rank(found, requirement.MaxResults);
+        var reports = plans.Select(p => InfeasibilityReport.For(p, designs, complete[p.Topology], tracker, context, deadline)).ToList();
+        var proved = complete.Values.All(c => c);
+        if (!proved)
+            notes.Add(cancellation.IsCancellationRequested
+                ? "The search was cancelled before it finished: the list may miss cheaper designs."
+                : "The time limit ran out before the search finished: the list may miss cheaper designs.");
+        var status = (designs.Count > 0, proved) switch
+        {
+            (true, true) => SearchStatus.Optimal,
+            (true, false) => SearchStatus.Feasible,
+            (false, true) => SearchStatus.Infeasible,
+            _ => SearchStatus.Unknown,
+        };
+        return new SearchOutcome(status, designs, reports, solves, clock.Elapsed, notes);
+    }
+
+    /// <summary>
+    /// Branch and bound (<see cref="SelectionEnumerator"/>) over each variant in turn, cheapest lower bound
+    /// first, every tree bounded by the list's cutoff as it stands. Returns the designs judged.
+    /// </summary>
+    private static int Enumerate(List<TopologyPlan> plans, List<(SearchVariant Variant, AcceptedChoice Choice)> found,
+        Dictionary<TopologyKind, bool> complete, IYieldCheck? yieldCheck, MissTracker tracker, DateTime deadline,
+        CancellationToken cancellation)
+    {
+        var wanted = plans.SelectMany(p => p.Variants).FirstOrDefault()?.Context.Requirement.MaxResults ?? 1;
+        var list = new CutoffList(wanted);
+        var judged = 0L;
+        var variants = plans.SelectMany(p => p.Variants)
+            .OrderBy(v => v.LowerBound).ThenBy(v => v.Topology).ToList();
+        for (var i = 0; i < variants.Count; i++)
+        {
+            var variant = variants[i];
+            var remaining = deadline - DateTime.UtcNow;
+            if (cancellation.IsCancellationRequested || remaining <= TimeSpan.Zero)
+            {
+                complete[variant.Topology] = false;
+                continue;
+            }
+            var scale = SelectionSolver.ScaleFor(variant.Problem);
+            if (list.Cutoff(variant.Topology) is { } limit && variant.LowerBound * scale > limit.Cost)
+                continue; // proved: nothing this variant builds can enter the list
+            var enumerator = new SelectionEnumerator(variant);
+            var run = enumerator.Run(
+                choice => Verify(variant, choice, yieldCheck, tracker, sweep: false),
+                choice => JudgeOnly(variant, choice, tracker),
+                () => list.Cutoff(variant.Topology),
+                accepted =>
+                {
+                    found.Add((variant, accepted));
+                    list.Add(variant.Topology, accepted.Objective, accepted.Verdict.FrequencyError);
+                },
+                deadline,
+                cancellation);
+            judged += run.Solves;
+            if (!run.Complete)
+                complete[variant.Topology] = false;
+        }
+        return (int)Math.Min(judged, int.MaxValue);
+    }
+
+    /// <summary>
+    /// The CP-SAT selection models with the lazy verification loop (<see cref="SelectionSolver"/>), one per
+    /// variant, in two phases. Returns the solves.
+    /// </summary>
+    private static int Model(List<TopologyPlan> plans, List<(SearchVariant Variant, AcceptedChoice Choice)> found,
+        Dictionary<TopologyKind, bool> complete, IYieldCheck? yieldCheck, MissTracker tracker, DateTime deadline,
+        int seed, CancellationToken cancellation)
+    {
+        var requirement = plans.SelectMany(p => p.Variants).FirstOrDefault()?.Context.Requirement;
+        if (requirement is null)
+            return 0;
+        var solves = 0;
 
         // Phase 1: the best design (and its ties) of every variant, each with an even share of the time left.
         // Phase 2: the full list, cheapest variants first, so the K-th design found early bounds the others.
@@ -94,7 +170,7 @@ public static class DesignSearch
                 cutoff,
                 variant.RoleSlots,
                 DateTime.UtcNow + remaining / Math.Max(left, 1),
-                options.Seed,
+                seed,
                 cancellation);
             solves += run.Solves;
             state.Accepted.AddRange(run.Accepted);
@@ -125,22 +201,7 @@ public static class DesignSearch
         foreach (var (variant, done) in finished)
             if (!done)
                 complete[variant.Topology] = false;
-
-        var designs = DesignAssembler.Rank(found, requirement.MaxResults);
-        var reports = plans.Select(p => InfeasibilityReport.For(p, designs, complete[p.Topology], tracker, context, deadline)).ToList();
-        var proved = complete.Values.All(c => c);
-        if (!proved)
-            notes.Add(cancellation.IsCancellationRequested
-                ? "The search was cancelled before it finished: the list may miss cheaper designs."
-                : "The time limit ran out before the search finished: the list may miss cheaper designs.");
-        var status = (designs.Count > 0, proved) switch
-        {
-            (true, true) => SearchStatus.Optimal,
-            (true, false) => SearchStatus.Feasible,
-            (false, true) => SearchStatus.Infeasible,
-            _ => SearchStatus.Unknown,
-        };
-        return new SearchOutcome(status, designs, reports, solves, clock.Elapsed, notes);
+        return solves;
     }
 
     /// <summary>Longest a variant spends on its starting design.</summary>
@@ -160,7 +221,24 @@ public static class DesignSearch
         return Math.Max(kth, topologyBest.Value);
     }
 
-    internal static SelectionVerdict Verify(SearchVariant variant, int[] choice, IYieldCheck? yieldCheck, MissTracker tracker)
+    /// <summary>The engine's judgement of an assignment (no yield check), recorded for the reports; null when invalid.</summary>
+    private static DesignJudgement? JudgeOnly(SearchVariant variant, int[] choice, MissTracker tracker)
+    {
+        try
+        {
+            var judgement = DesignJudge.Judge(variant.Context.Requirement, variant.DesignOf(choice));
+            if (!judgement.Accepted)
+                tracker.Rejected(variant, choice, judgement);
+            return judgement;
+        }
+        catch (DesignValidationException invalid)
+        {
+            tracker.Invalid(variant, invalid.Message);
+            return null;
+        }
+    }
+
+    internal static SelectionVerdict Verify(SearchVariant variant, int[] choice, IYieldCheck? yieldCheck, MissTracker tracker, bool sweep = true)
     {
         var requirement = variant.Context.Requirement;
         var design = variant.DesignOf(choice);
@@ -179,7 +257,7 @@ public static class DesignSearch
         {
             tracker.Rejected(variant, choice, judgement);
             var rejection = variant.Rejection(choice, judgement);
-            return rejection is { CutGroup: null, CutEscapeOptions: null, CutSlots: { } scope }
+            return sweep && rejection is { CutGroup: null, CutEscapeOptions: null, CutSlots: { } scope }
                 ? rejection with { MoreCuts = ScopeSweep.Sweep(variant, choice, scope) }
                 : rejection;
         }
@@ -197,4 +275,47 @@ public static class DesignSearch
 
         return new SelectionVerdict(true, null, judgement.FrequencyError, judgement.Margin, null, judgement);
     }
+
+    /// <summary>
+    /// The list's cutoff kept up to date as designs are accepted, in rank order (cost, then frequency error):
+    /// the K-th best so far (a max-heap of the K best) and each topology's best. Read at every node of the
+    /// tree, so O(1).
+    /// </summary>
+    private sealed class CutoffList(int wanted)
+    {
+        private static readonly Comparer<SearchCutoff> Descending =
+            Comparer<SearchCutoff>.Create((a, b) => b.CompareTo(a));
+        private readonly PriorityQueue<SearchCutoff, SearchCutoff> kept = new(Descending);
+        private readonly Dictionary<TopologyKind, SearchCutoff> best = [];
+
+        public void Add(TopologyKind topology, long objective, double frequencyError)
+        {
+            var rank = new SearchCutoff(objective, frequencyError);
+            if (!best.TryGetValue(topology, out var own) || rank.CompareTo(own) < 0)
+                best[topology] = rank;
+            if (kept.Count < wanted)
+                kept.Enqueue(rank, rank);
+            else if (rank.CompareTo(kept.Peek()) < 0)
+                kept.EnqueueDequeue(rank, rank);
+        }
+
+        /// <summary>Designs ranked after both the K-th so far and this topology's best cannot enter the list.</summary>
+        public SearchCutoff? Cutoff(TopologyKind topology)
+        {
+            if (kept.Count < wanted || !best.TryGetValue(topology, out var own))
+                return null;
+            var kth = kept.Peek();
+            return kth.CompareTo(own) >= 0 ? kth : own;
+        }
+    }
+}
+
+/// <summary>
+/// How far down the ranking a design may still enter the list: its total build cost (scaled objective) and,
+/// at that same cost, its nominal frequency error. A design ranked after it, cost first, cannot.
+/// </summary>
+internal readonly record struct SearchCutoff(long Cost, double FrequencyError) : IComparable<SearchCutoff>
+{
+    public int CompareTo(SearchCutoff other) =>
+        Cost != other.Cost ? Cost.CompareTo(other.Cost) : FrequencyError.CompareTo(other.FrequencyError);
 }

@@ -18,12 +18,30 @@ public enum SearchStatus
     Unknown,
 }
 
+/// <summary>How the search walks the choices.</summary>
+public enum SearchMethod
+{
+    /// <summary>
+    /// Exact branch and bound over the roles (the default): cost bounds with line items, log-space bounds,
+    /// the engine on partial designs and on every leaf.
+    /// </summary>
+    BranchAndBound,
+
+    /// <summary>
+    /// CP-SAT selection models with a lazy loop: the engine judges each solution and cuts off the failures.
+    /// Slower on real stockrooms; kept as an independent second search for cross-checks.
+    /// </summary>
+    SelectionModel,
+}
+
 /// <summary>How to tune the search itself.</summary>
 /// <param name="TimeLimit">Wall time for the whole search (default 30 s).</param>
 /// <param name="Seed">CP-SAT random seed (default 1). Results do not depend on it when the search completes.</param>
 /// <param name="YieldCheck">The yield post-check when the requirement asks for a yield; null for
 /// <see cref="ToleranceYieldCheck"/> (extreme-value corners or Monte Carlo from the tolerance analyses).</param>
-public sealed record SearchOptions(TimeSpan? TimeLimit = null, int Seed = 1, IYieldCheck? YieldCheck = null)
+/// <param name="Method">How the search walks the choices (default: branch and bound).</param>
+public sealed record SearchOptions(TimeSpan? TimeLimit = null, int Seed = 1, IYieldCheck? YieldCheck = null,
+    SearchMethod Method = SearchMethod.BranchAndBound)
 {
     /// <summary>The time limit in force.</summary>
     public TimeSpan EffectiveTimeLimit => TimeLimit ?? TimeSpan.FromSeconds(30);
