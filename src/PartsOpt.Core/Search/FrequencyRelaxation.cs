@@ -67,7 +67,7 @@ internal static class FrequencyRelaxation
             // (RelaxationTiming.HalfPeriods), so no relaxation oscillator of this amplifier is faster than 1/(2·t_e).
             if (2 * edge > periodMax * (1 + 1e-9))
                 bounds.Add(Impossible(FigureNames.Frequency));
-            else if (DividerBuckets(slots, r1, r2, references, levels, amp.InputOffsetV) is { } divider)
+            else if (SharedDividerBuckets(variant, slots, r1, r2, references, levels) is { } divider)
             {
                 buckets.Add(divider.Buckets);
                 // Each slewing edge must end before the capacitor reaches the other threshold, or no period
@@ -169,6 +169,15 @@ internal static class FrequencyRelaxation
         return new Result(buckets, bounds);
     }
 
+    private static (RatioBuckets Buckets, RatioBuckets EdgeBuckets, double UpperEdgeMultiplier)? SharedDividerBuckets(
+        SearchVariant variant, IReadOnlyList<SelectionSlot> slots, int r1, int r2, IReadOnlyList<double> references, Levels levels)
+    {
+        var cache = variant.Context.DividerBuckets;
+        if (!cache.TryGetValue(variant.AmplifierIndex, out var divider))
+            cache[variant.AmplifierIndex] = divider = DividerBuckets(slots, r1, r2, references, levels, levels.Amp.InputOffsetV);
+        return divider;
+    }
+
     /// <summary>
     /// The relaxation oscillator's period factor k(β, reference) bucketed over the divider ratio
     /// x = ln(r2) − ln(r1) (β = 1/(1 + e^(−x))). k rises with β for any reference; for a fixed β it is
@@ -189,23 +198,38 @@ internal static class FrequencyRelaxation
         var members = new List<(double X, double Low, double High)>();
         var edgeMembers = new List<(double X, double Low, double High)>();
         var betaMin = 1.0;
+        // Stocked series repeat their ratios (E96 × E96 has about 1,000 distinct ones in 230,000 pairs):
+        // each distinct ratio is worked out once.
+        var seen = new Dictionary<double, ((double X, double Low, double High) Member, double EdgeFactor, double Beta)?>();
         foreach (var a in slots[r1].Options)
             foreach (var b in slots[r2].Options)
             {
                 var x = b.LogValue - a.LogValue;
+                if (seen.TryGetValue(x, out var known))
+                {
+                    if (known is { } k)
+                    {
+                        members.Add(k.Member);
+                        edgeMembers.Add((x, k.EdgeFactor, k.EdgeFactor));
+                    }
+                    continue;
+                }
+                seen[x] = null;
                 var beta = 1 / (1 + Math.Exp(-x));
                 // The offset condition is most lenient about the centre reference, where min(L+, −L−) is largest.
                 // Hysteresis β·(L+ − L−) below HysteresisOffsets input offsets fails the engine's check too.
                 if (!double.IsFinite(levels.PeriodFactor(beta, centre, offsetV))
                     || beta * (levels.HighRel(centre) - levels.LowRel(centre)) < CircuitChecks.HysteresisOffsets * offsetV * (1 - 1e-9))
                     continue;
-                members.Add((x, Factor(beta, centre), Math.Max(Factor(beta, usable[0]), Factor(beta, usable[^1]))));
+                var member = (x, Factor(beta, centre), Math.Max(Factor(beta, usable[0]), Factor(beta, usable[^1])));
+                members.Add(member);
                 // max(L+, −L−) is least about the centre reference, where the loose bound is weakest; with one
                 // reference (a dual supply) the sharp bound holds for β ≥ 1/2.
                 var edgeFactor = Math.Log(usable.Length == 1
                     ? EdgeCompletesSharp(beta, levels.HighRel(centre), levels.LowRel(centre))
                     : EdgeCompletes(beta, levels.HighRel(centre), levels.LowRel(centre)));
                 edgeMembers.Add((x, edgeFactor, edgeFactor));
+                seen[x] = (member, edgeFactor, beta);
                 betaMin = Math.Min(betaMin, beta);
             }
         if (members.Count == 0)

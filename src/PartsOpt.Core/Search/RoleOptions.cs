@@ -84,6 +84,9 @@ internal sealed class RoleOptions
     /// <summary>The choices for a role.</summary>
     public IReadOnlyList<StockChoice> For(string role) => byKind[Roles.KindOf(role)];
 
+    /// <summary>The choices for every role of a kind.</summary>
+    public IReadOnlyList<StockChoice> For(RoleKind kind) => byKind[kind];
+
     /// <summary>The slot option of a choice: its draws on the stock lines (one line per part index).</summary>
     public static SlotOption ToOption(StockChoice choice) =>
         new(choice.PartIndices.GroupBy(i => i).Select(g => new PartDraw(g.Key, g.Count())).ToList(),

@@ -27,6 +27,22 @@ internal sealed class SearchContext
             .ToList();
     }
 
+    /// <summary>The slot options of every role of a kind, made once and shared by every variant.</summary>
+    public IReadOnlyList<SlotOption> SlotOptionsFor(RoleKind kind)
+    {
+        if (!slotOptions.TryGetValue(kind, out var options))
+            slotOptions[kind] = options = Options.For(kind).Select(RoleOptions.ToOption).ToList();
+        return options;
+    }
+
+    private readonly Dictionary<RoleKind, IReadOnlyList<SlotOption>> slotOptions = [];
+
+    /// <summary>
+    /// The relaxation oscillator's ratio buckets for an amplifier (they depend on its levels and offset and on
+    /// the stocked resistors only), made once and shared by the variants that use it.
+    /// </summary>
+    internal Dictionary<int, (RatioBuckets Buckets, RatioBuckets EdgeBuckets, double UpperEdgeMultiplier)?> DividerBuckets { get; } = [];
+
     public SearchRequirement Requirement { get; }
     public Stock Stock { get; }
     public IReadOnlyList<StockLine> Lines { get; }

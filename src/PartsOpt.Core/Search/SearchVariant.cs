@@ -36,33 +36,44 @@ internal sealed class SearchVariant
         Packages = AmplifierPackages + (cmp is null ? 0 : 1);
 
         var slots = RoleNames
-            .Select(role => new SelectionSlot(role, context.Options.For(role).Select(RoleOptions.ToOption).ToList()))
+            .Select(role => new SelectionSlot(role, context.SlotOptionsFor(Roles.KindOf(role))))
             .ToList();
         DecouplingChoices = context.DecouplingCapacitors;
         if (DecouplingChoices.Count > 0)
             slots.Add(new SelectionSlot(DecouplingSlot, DecouplingChoices
                 .Select(i => new SlotOption([new PartDraw(i, Packages)], 0, i)).ToList()));
+        Slots = slots;
+        FixedDraws = fixedDraws;
 
-        var relaxation = FrequencyRelaxation.For(this, slots);
-        var groups = new List<TupleGroup>();
-        if (ThresholdDivider.For(this, slots) is { } divider)
+        // The bounds and the divider group take most of a variant's making; a variant whose lower bound
+        // passes the cutoff never needs them.
+        built = new Lazy<(SelectionProblem, ThresholdDivider?, int?)>(() =>
         {
-            Thresholds = divider;
-            ThresholdGroup = groups.Count;
-            groups.Add(divider.Group);
-        }
-        Problem = new SelectionProblem
-        {
-            Lines = context.Lines,
-            Slots = slots,
-            FixedDraws = fixedDraws,
-            Groups = groups,
-            Buckets = relaxation.Buckets,
-            Bounds = relaxation.Bounds,
-            BuildQuantity = requirement.BuildQuantity,
-            Costs = requirement.Costs,
-        };
+            var relaxation = FrequencyRelaxation.For(this, slots);
+            var groups = new List<TupleGroup>();
+            ThresholdDivider? thresholds = null;
+            int? group = null;
+            if (ThresholdDivider.For(this, slots) is { } divider)
+            {
+                (thresholds, group) = (divider, groups.Count);
+                groups.Add(divider.Group);
+            }
+            var problem = new SelectionProblem
+            {
+                Lines = context.Lines,
+                Slots = slots,
+                FixedDraws = fixedDraws,
+                Groups = groups,
+                Buckets = relaxation.Buckets,
+                Bounds = relaxation.Bounds,
+                BuildQuantity = requirement.BuildQuantity,
+                Costs = requirement.Costs,
+            };
+            return (problem, thresholds, group);
+        });
     }
+
+    private readonly Lazy<(SelectionProblem Problem, ThresholdDivider? Thresholds, int? Group)> built;
 
     /// <summary>
     /// A lower bound on the total build cost of any design of this variant: its op-amp packages, the cheapest
@@ -73,14 +84,14 @@ internal sealed class SearchVariant
     {
         get
         {
-            var quantity = Problem.BuildQuantity;
-            var costs = Problem.Costs;
+            var quantity = Context.Requirement.BuildQuantity;
+            var costs = Context.Requirement.Costs;
             decimal Draws(IEnumerable<PartDraw> draws) =>
-                draws.Sum(d => d.PerBoard * quantity * (Problem.Lines[d.Line].UnitCost + costs.PlacementCost));
+                draws.Sum(d => d.PerBoard * quantity * (Context.Lines[d.Line].UnitCost + costs.PlacementCost));
             var kinds = RoleNames.Select(Roles.KindOf).Distinct().Count();
-            var lines = Problem.FixedDraws.Select(d => d.Line).Distinct().Count() + kinds;
-            return Draws(Problem.FixedDraws)
-                + Problem.Slots.Sum(slot => slot.Options.Count == 0 ? 0 : slot.Options.Min(o => Draws(o.Draws)))
+            var lines = FixedDraws.Select(d => d.Line).Distinct().Count() + kinds;
+            return Draws(FixedDraws)
+                + Slots.Sum(slot => slot.Options.Count == 0 ? 0 : slot.Options.Min(o => Draws(o.Draws)))
                 + lines * costs.LineItemSetupCost;
         }
     }
@@ -106,16 +117,26 @@ internal sealed class SearchVariant
     /// <summary>Stock line indices of the capacitors fit for decoupling, cheapest first.</summary>
     public IReadOnlyList<int> DecouplingChoices { get; }
 
-    public SelectionProblem Problem { get; }
+    /// <summary>The selection problem: slots, stock, op-amp draws, and the log-space bounds (made on first use).</summary>
+    public SelectionProblem Problem => built.Value.Problem;
+
+    /// <summary>The slots (roles, then decoupling), without building the bounds.</summary>
+    public IReadOnlyList<SelectionSlot> Slots { get; }
+
+    /// <summary>The op-amp packages every design of the variant draws.</summary>
+    public IReadOnlyList<PartDraw> FixedDraws { get; }
+
+    /// <summary>Integer objective units per unit of currency (see <see cref="SelectionSolver.ScaleFor(SelectionProblem)"/>).</summary>
+    public long CostScale => SelectionSolver.ScaleFor(Context.Lines, Context.Requirement.Costs);
 
     /// <summary>Scopes already swept by <see cref="ScopeSweep"/> in this variant.</summary>
     public HashSet<string> SweptScopes { get; } = [];
 
     /// <summary>The threshold divider's (cmp.ra, cmp.pot, cmp.rb) tuples and their threshold range, if built.</summary>
-    public ThresholdDivider? Thresholds { get; }
+    public ThresholdDivider? Thresholds => built.Value.Thresholds;
 
     /// <summary>Index of the threshold divider's group in <see cref="Problem"/>, if built.</summary>
-    public int? ThresholdGroup { get; }
+    public int? ThresholdGroup => built.Value.Group;
 
     /// <summary>A short name for reports: "three-stage with OPA-GP-QUAD-A and comparator CMP-OD-QUAD-E".</summary>
     public string Describe() =>
@@ -137,7 +158,7 @@ internal sealed class SearchVariant
 
     /// <summary>The stock choice in each role for an assignment.</summary>
     public IReadOnlyDictionary<string, StockChoice> ChoicesOf(IReadOnlyList<int> choice) =>
-        RoleNames.Select((role, s) => (role, option: (StockChoice)Problem.Slots[s].Options[choice[s]].Tag!))
+        RoleNames.Select((role, s) => (role, option: (StockChoice)Slots[s].Options[choice[s]].Tag!))
             .ToDictionary(x => x.role, x => x.option);
 
     /// <summary>The circuit of an assignment.</summary>
@@ -154,9 +175,9 @@ internal sealed class SearchVariant
     /// </summary>
     public IReadOnlyList<int> ScopeOf(MissedTarget missed) => missed switch
     {
-        MissedTarget.Frequency => Slots(FrequencyRoles()),
-        MissedTarget.TriangleAmplitude => Slots(RampRoles()),
-        MissedTarget.OutputLevels => Slots([Roles.CmpPullup]),
+        MissedTarget.Frequency => SlotsOf(FrequencyRoles()),
+        MissedTarget.TriangleAmplitude => SlotsOf(RampRoles()),
+        MissedTarget.OutputLevels => SlotsOf([Roles.CmpPullup]),
         _ => RoleSlots,
     };
 
@@ -179,13 +200,13 @@ internal sealed class SearchVariant
     /// </summary>
     public IReadOnlyList<int> ScopeOfCheck(string check, DesignJudgement judgement) => check switch
     {
-        "input common-mode range (comparator)" when RampOutsideComparatorRange(judgement) => Slots(RampRoles()),
-        "oscillator can switch" or "output edges short against the period" => Slots(FrequencyRoles()),
+        "input common-mode range (comparator)" when RampOutsideComparatorRange(judgement) => SlotsOf(RampRoles()),
+        "oscillator can switch" or "output edges short against the period" => SlotsOf(FrequencyRoles()),
         "integrator slope below slew rate" or "triangle inside integrator swing"
             or "input common-mode range (oscillator)" or "input common-mode range (schmitt)"
             or "input common-mode range (integrator)" or "input common-mode range (reference buffer)"
             or "output current (oscillator)" or "output current (schmitt)" or "output current (integrator)"
-            => Slots(RampRoles()),
+            => SlotsOf(RampRoles()),
         _ when check.StartsWith("non-polarised (", StringComparison.Ordinal) && SlotOf(check[15..^1]) is >= 0 and var s => [s],
         _ when check.StartsWith("timing dielectric (", StringComparison.Ordinal) && SlotOf(check[19..^1]) is >= 0 and var s => [s],
         "output current (comparator)" when SlotOf(Roles.CmpPullup) is >= 0 and var pullup => [pullup],
@@ -205,12 +226,12 @@ internal sealed class SearchVariant
         if (SlotOf(role) < 0)
             return RoleSlots;
         if (FrequencyRoles().Contains(role))
-            return Slots(FrequencyRoles());
+            return SlotsOf(FrequencyRoles());
         if (RampRoles().Contains(role))
-            return Slots(RampRoles());
+            return SlotsOf(RampRoles());
         if (role == Roles.CmpPullup)
             return [SlotOf(role)];
-        return divider.Contains(role) ? Slots(divider) : RoleSlots;
+        return divider.Contains(role) ? SlotsOf(divider) : RoleSlots;
     }
 
     /// <summary>
@@ -227,7 +248,7 @@ internal sealed class SearchVariant
             return verdict with { CutSlots = monotone.Scope, CutEscapeSlot = monotone.Slot, CutEscape = monotone.Better };
         if (!judgement.Missed.Contains(MissedTarget.DutyRange) || best.Count < RoleSlots.Count)
             return verdict;
-        var ramp = Slots(RampRoles());
+        var ramp = SlotsOf(RampRoles());
         if (Prototype.DutyControl is ControlVoltageDuty)
             return verdict with { CutSlots = ramp };
         if (Thresholds is null || ThresholdGroup is null)
@@ -269,7 +290,7 @@ internal sealed class SearchVariant
             var options = Problem.Slots[slot].Options;
             var current = ((StockChoice)options[choice[slot]].Tag!).Value;
             var better = Enumerable.Range(0, options.Count).Where(o => ((StockChoice)options[o].Tag!).Value > current).ToList();
-            return (Slots(roles), slot, better);
+            return (SlotsOf(roles), slot, better);
         }
         return null;
     }
@@ -336,5 +357,5 @@ internal sealed class SearchVariant
         ? [.. FrequencyRoles(), Roles.IntR, Roles.IntC, Roles.IntRf]
         : FrequencyRoles();
 
-    private List<int> Slots(IEnumerable<string> roles) => roles.Select(SlotOf).Where(s => s >= 0).ToList();
+    private List<int> SlotsOf(IEnumerable<string> roles) => roles.Select(SlotOf).Where(s => s >= 0).ToList();
 }

@@ -323,10 +323,13 @@ internal sealed class SelectionSolver
     private long Scaled(decimal amount) => checked((long)(amount * CostScale));
 
     /// <summary>The smallest power of ten (up to 10^8) that makes every cost in the problem a whole number.</summary>
-    internal static long ScaleFor(SelectionProblem problem)
+    internal static long ScaleFor(SelectionProblem problem) => ScaleFor(problem.Lines, problem.Costs);
+
+    /// <summary>The smallest power of ten (up to 10^8) that makes every line's cost and the cost model whole.</summary>
+    internal static long ScaleFor(IReadOnlyList<StockLine> lines, CostModel costs)
     {
-        var amounts = problem.Lines.Select(l => l.UnitCost)
-            .Append(problem.Costs.PlacementCost).Append(problem.Costs.LineItemSetupCost);
+        var amounts = lines.Select(l => l.UnitCost)
+            .Append(costs.PlacementCost).Append(costs.LineItemSetupCost);
         var scale = 1L;
         foreach (var amount in amounts)
         {
@@ -334,7 +337,7 @@ internal sealed class SelectionSolver
             {
                 scale *= 10;
                 if (scale > 100_000_000)
-                    throw new ArgumentException($"Cost {amount} has more than eight decimal places.", nameof(problem));
+                    throw new ArgumentException($"Cost {amount} has more than eight decimal places.", nameof(lines));
             }
         }
         return scale;

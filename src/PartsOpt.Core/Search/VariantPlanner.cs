@@ -62,13 +62,13 @@ internal static class VariantPlanner
     /// <summary>Why a variant cannot be built at all, before any model: no part for a role, too few op-amp packages.</summary>
     private static string? Blocked(SearchVariant variant)
     {
-        foreach (var slot in variant.Problem.Slots.Take(variant.RoleNames.Count))
+        foreach (var slot in variant.Slots.Take(variant.RoleNames.Count))
             if (slot.Options.Count == 0)
                 return $"There is no {Roles.KindOf(slot.Name).ToString().ToLowerInvariant()} in stock for role {slot.Name}.";
         var quantity = variant.Context.Requirement.BuildQuantity;
-        foreach (var draw in variant.Problem.FixedDraws)
+        foreach (var draw in variant.FixedDraws)
         {
-            var line = variant.Problem.Lines[draw.Line];
+            var line = variant.Context.Lines[draw.Line];
             if ((long)draw.PerBoard * quantity > line.Available)
                 return Say($"{variant.Describe()} needs {draw.PerBoard * (long)quantity} packages of {line.PartNumber} for {quantity} boards; {line.Available} are available.");
         }
