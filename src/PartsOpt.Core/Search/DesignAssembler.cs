@@ -27,9 +27,9 @@ internal static class DesignAssembler
     }
 
     /// <summary>A fixed key for the last tie-break: topology, op-amps, then the part numbers role by role.</summary>
-    private static string Key(SearchVariant variant, int[] choice) =>
+    internal static string Key(SearchVariant variant, int[] choice) =>
         string.Join('|', [variant.Topology.ToWireName(), variant.Describe(),
-            .. variant.Problem.Slots.Select((s, i) => s.Options[choice[i]].Tag switch
+            .. variant.Slots.Select((s, i) => s.Options[choice[i]].Tag switch
             {
                 StockChoice c => c.Label,
                 int line => variant.Context.Lines[line].PartNumber,

@@ -84,18 +84,18 @@ public static class DesignSearch
                 complete[variant.Topology] = false;
                 continue;
             }
-            var scale = SelectionSolver.ScaleFor(variant.Problem);
-            if (list.Cutoff(variant.Topology) is { } limit && variant.LowerBound * scale > limit.Cost)
+            if (list.Cutoff(variant.Topology) is { } limit && variant.LowerBound * variant.CostScale > limit.Cost)
                 continue; // proved: nothing this variant builds can enter the list
             var enumerator = new SelectionEnumerator(variant);
             var run = enumerator.Run(
-                choice => Verify(variant, choice, yieldCheck, tracker, sweep: false),
+                choice => Verify(variant, choice, yieldCheck, tracker, forModel: false),
                 choice => JudgeOnly(variant, choice, tracker),
                 () => list.Cutoff(variant.Topology),
                 accepted =>
                 {
                     found.Add((variant, accepted));
-                    list.Add(variant.Topology, accepted.Objective, accepted.Verdict.FrequencyError);
+                    list.Add(variant.Topology, new SearchCutoff(accepted.Objective, accepted.Verdict.FrequencyError,
+                        accepted.Verdict.Margin, DesignAssembler.Key(variant, accepted.Choice)));
                 },
                 deadline,
                 cancellation);
@@ -238,7 +238,11 @@ public static class DesignSearch
         }
     }
 
-    internal static SelectionVerdict Verify(SearchVariant variant, int[] choice, IYieldCheck? yieldCheck, MissTracker tracker, bool sweep = true)
+    /// <summary>
+    /// The engine's verdict on an assignment, then the yield check. For the CP-SAT loop (forModel) a
+    /// rejection carries its cut (scope, escapes, swept cuts); the branch and bound reads the judgement itself.
+    /// </summary>
+    internal static SelectionVerdict Verify(SearchVariant variant, int[] choice, IYieldCheck? yieldCheck, MissTracker tracker, bool forModel = true)
     {
         var requirement = variant.Context.Requirement;
         var design = variant.DesignOf(choice);
@@ -256,8 +260,10 @@ public static class DesignSearch
         if (!judgement.Accepted)
         {
             tracker.Rejected(variant, choice, judgement);
+            if (!forModel)
+                return new SelectionVerdict(false, null, judgement.FrequencyError, judgement.Margin, null, judgement);
             var rejection = variant.Rejection(choice, judgement);
-            return sweep && rejection is { CutGroup: null, CutEscapeOptions: null, CutSlots: { } scope }
+            return rejection is { CutGroup: null, CutEscapeOptions: null, CutSlots: { } scope }
                 ? rejection with { MoreCuts = ScopeSweep.Sweep(variant, choice, scope) }
                 : rejection;
         }
@@ -277,9 +283,9 @@ public static class DesignSearch
     }
 
     /// <summary>
-    /// The list's cutoff kept up to date as designs are accepted, in rank order (cost, then frequency error):
-    /// the K-th best so far (a max-heap of the K best) and each topology's best. Read at every node of the
-    /// tree, so O(1).
+    /// The list's cutoff kept up to date as designs are accepted, in rank order (cost, frequency error,
+    /// margin, key): the K-th best so far (a max-heap of the K best) and each topology's best. Read at every
+    /// node of the tree, so O(1).
     /// </summary>
     private sealed class CutoffList(int wanted)
     {
@@ -288,9 +294,8 @@ public static class DesignSearch
         private readonly PriorityQueue<SearchCutoff, SearchCutoff> kept = new(Descending);
         private readonly Dictionary<TopologyKind, SearchCutoff> best = [];
 
-        public void Add(TopologyKind topology, long objective, double frequencyError)
+        public void Add(TopologyKind topology, SearchCutoff rank)
         {
-            var rank = new SearchCutoff(objective, frequencyError);
             if (!best.TryGetValue(topology, out var own) || rank.CompareTo(own) < 0)
                 best[topology] = rank;
             if (kept.Count < wanted)
@@ -311,11 +316,16 @@ public static class DesignSearch
 }
 
 /// <summary>
-/// How far down the ranking a design may still enter the list: its total build cost (scaled objective) and,
-/// at that same cost, its nominal frequency error. A design ranked after it, cost first, cannot.
+/// A design's place in the ranking (DesignAssembler.Rank): total build cost (the scaled objective), then the
+/// smaller nominal frequency error, the larger margin, the smaller key. As a cutoff: a design ranked after
+/// it cannot enter the list.
 /// </summary>
-internal readonly record struct SearchCutoff(long Cost, double FrequencyError) : IComparable<SearchCutoff>
+internal readonly record struct SearchCutoff(long Cost, double FrequencyError, double Margin = double.NegativeInfinity, string? Key = null)
+    : IComparable<SearchCutoff>
 {
     public int CompareTo(SearchCutoff other) =>
-        Cost != other.Cost ? Cost.CompareTo(other.Cost) : FrequencyError.CompareTo(other.FrequencyError);
+        Cost != other.Cost ? Cost.CompareTo(other.Cost)
+        : FrequencyError != other.FrequencyError ? FrequencyError.CompareTo(other.FrequencyError)
+        : Margin != other.Margin ? other.Margin.CompareTo(Margin)
+        : string.CompareOrdinal(Key, other.Key);
 }

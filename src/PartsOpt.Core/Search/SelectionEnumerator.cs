@@ -28,8 +28,8 @@ internal sealed class SelectionEnumerator
     private readonly int[][] byCost;
     private readonly long[] minObjective;
     private readonly int[] slotKind;
-    private readonly int[][] singleOption;
-    private readonly Dictionary<(int, int), int>[] pairOptions;
+    private readonly int[][][] singleOption;
+    private readonly Dictionary<(int, int), int[]>[] pairOptions;
     private readonly long setup;
     private readonly long fixedObjective;
     private readonly long[] capacity;
@@ -50,6 +50,33 @@ internal sealed class SelectionEnumerator
     private readonly double[] needTopAbove, needBottomBelow;
     private long partialObjective;
     private double errorAtFrequencyDepth = double.NaN;
+    private SearchCutoff? limit;
+    private int exhausted;
+    private bool untilCutoff, collecting;
+    private long collectAbove;
+    private readonly List<Generator> generators = [];
+    private readonly List<int> generatorOptions = [];
+    private readonly int[][] slotsOnLine;
+    private readonly int[] reusable;
+    private readonly long[] cheapestFrom;
+    private readonly (long Key, (double Min, double Max) Range)[] bucketMemo;
+    private readonly double[][] values;
+    private readonly double frequencyTarget, frequencyTolerance, dutyMin, dutyMax;
+    private readonly bool learnsDuty;
+    private readonly int dutyFrame;
+    private readonly List<(double Threshold, double Duty)> tops = [], bottoms = [];
+    private readonly IReadOnlyList<int> rampSlots;
+    private readonly FrequencyForecast? forecast;
+    private bool forecastTrusted = true;
+
+    /// <summary>False once a forecast disagreed with the engine in the last run (tests read it).</summary>
+    public bool ForecastTrusted => forecastTrusted;
+    private readonly int[][] buffers;
+    private readonly int[][] byLog;
+    private readonly double[][] sortedLogs;
+    private readonly int[][] marks;
+    private int stamp;
+    private readonly int frequencyBound;
     private readonly int frequencyDepth;
     private long nodes;
     private DateTime deadline;
@@ -91,20 +118,28 @@ internal sealed class SelectionEnumerator
                 foreach (var line in lines)
                     lineKind[line] = slotKind[s];
         }
-        singleOption = new int[slots.Count][];
-        pairOptions = new Dictionary<(int, int), int>[slots.Count];
+        // Every option by the lines it draws: one line (a part, or a part twice in a combination) or two.
+        singleOption = new int[slots.Count][][];
+        pairOptions = new Dictionary<(int, int), int[]>[slots.Count];
         for (var s = 0; s < slots.Count; s++)
         {
-            singleOption[s] = Enumerable.Repeat(-1, problem.Lines.Count).ToArray();
-            pairOptions[s] = [];
+            var single = new List<int>?[problem.Lines.Count];
+            var pairs = new Dictionary<(int, int), List<int>>();
             foreach (var o in byCost[s])
             {
                 var lines = linesOf[s][o];
-                if (lines.Length == 1 && singleOption[s][lines[0]] < 0)
-                    singleOption[s][lines[0]] = o;
+                if (lines.Length == 1)
+                    (single[lines[0]] ??= []).Add(o);
                 else if (lines.Length == 2)
-                    pairOptions[s].TryAdd((Math.Min(lines[0], lines[1]), Math.Max(lines[0], lines[1])), o);
+                {
+                    var key = (Math.Min(lines[0], lines[1]), Math.Max(lines[0], lines[1]));
+                    if (!pairs.TryGetValue(key, out var list))
+                        pairs[key] = list = [];
+                    list.Add(o);
+                }
             }
+            singleOption[s] = single.Select(l => l?.ToArray() ?? []).ToArray();
+            pairOptions[s] = pairs.ToDictionary(kv => kv.Key, kv => kv.Value.ToArray());
         }
 
         slotRange = logs.Select(values => Range(values.Where(double.IsFinite))).ToArray();
@@ -140,6 +175,32 @@ internal sealed class SelectionEnumerator
             ? new[] { dividerRa, dividerPot, dividerRb }.Max(s => position[s])
             : -1;
 
+        buffers = order.Select(s => new int[slots[s].Options.Count]).ToArray();
+        byLog = logs.Select(values => Enumerable.Range(0, values.Length).OrderBy(o => values[o]).ThenBy(o => o).ToArray()).ToArray();
+        sortedLogs = byLog.Select((sorted, s) => sorted.Select(o => logs[s][o]).ToArray()).ToArray();
+        marks = slots.Select(s => new int[s.Options.Count]).ToArray();
+        frequencyBound = problem.Bounds.Select((b, i) => (b, i)).FirstOrDefault(x => x.b.Figure == FigureNames.Frequency, (null!, -1)).Item2;
+        values = slots.Select(s => s.Options.Select(o => o.Tag is StockChoice c ? c.Value : double.NaN).ToArray()).ToArray();
+        frequencyTarget = variant.Context.Requirement.Frequency.Target;
+        frequencyTolerance = variant.Context.Requirement.Frequency.Tolerance;
+        (dutyMin, dutyMax) = (variant.Context.Requirement.Duty.Min, variant.Context.Requirement.Duty.Max);
+        // Duty samples are shared by leaves that differ only in the divider: the divider must be the last
+        // three roles, and the frame is the role just above them.
+        learnsDuty = dividerDepth == order.Length - 1 && new[] { dividerRa, dividerPot, dividerRb }.All(s => position[s] >= order.Length - 3);
+        dutyFrame = learnsDuty ? order.Length - 4 : -1;
+        rampSlots = variant.ScopeOf(MissedTarget.TriangleAmplitude);
+        forecast = frequencyDepth >= 0 && FrequencyForecast.For(variant) is { } f && f.Slots.All(s => position[s] <= frequencyDepth) ? f : null;
+        // The slots with a one-line option on each line (their reuse count rises when the line comes onto
+        // the BOM), and the cheapest options of the slots from each depth on (the extra slots included).
+        slotsOnLine = Enumerable.Range(0, problem.Lines.Count)
+            .Select(line => Enumerable.Range(0, slots.Count).Where(s => singleOption[s][line].Length > 0).ToArray()).ToArray();
+        reusable = new int[slots.Count];
+        bucketMemo = new (long, (double, double))[problem.Buckets.Count];
+        var extraCheapest = Enumerable.Range(roleCount, slots.Count - roleCount).Sum(s => minObjective[s]);
+        cheapestFrom = new long[order.Length + 1];
+        cheapestFrom[order.Length] = extraCheapest;
+        for (var d = order.Length - 1; d >= 0; d--)
+            cheapestFrom[d] = cheapestFrom[d + 1] + minObjective[order[d]];
         choice = new int[slots.Count];
         assigned = new bool[slots.Count];
         use = new long[problem.Lines.Count];
@@ -150,6 +211,8 @@ internal sealed class SelectionEnumerator
 
     /// <summary>Partial designs judged, and leaves judged, in the last run.</summary>
     public long Judged { get; private set; }
+
+
 
     /// <summary>Partial designs judged in the last run (included in <see cref="Judged"/>).</summary>
     public long PartialJudged { get; private set; }
@@ -177,15 +240,36 @@ internal sealed class SelectionEnumerator
         nodes = 0;
         Judged = 0;
         var found = new List<AcceptedChoice>();
+        var seen = new HashSet<string>();
+        limit = cutoff();
         onAccepted = a =>
         {
+            // The two phases below may meet a design twice.
+            if (!seen.Add(string.Join(',', a.Choice.Take(roleCount))))
+                return;
             found.Add(a);
             accepted(a);
+            limit = cutoff();
         };
         var buildable = problem.Bounds.All(b => b.Lower <= b.Upper && !double.IsNegativeInfinity(b.Upper))
             && Enumerable.Range(0, roleCount).All(s => problem.Slots[s].Options.Count > 0);
-        if (buildable && TakeFixed())
-            Descend(0);
+        if (buildable && TakeFixed() && (exhausted = Exhausted(0)) >= 0)
+        {
+            if (forecast is null)
+                Descend(0);
+            else
+            {
+                // Phase 1: depth first until the list has a cutoff. Phase 2: every square-wave generator
+                // within it, collected with its cheapest completion and forecast frequency error, then
+                // completed in rank order until the next one ranks after the cutoff.
+                untilCutoff = limit is null;
+                if (untilCutoff)
+                    Descend(0);
+                untilCutoff = false;
+                if (!stopped && limit is not null)
+                    ByGenerator();
+            }
+        }
         var ranked = found
             .OrderBy(a => a.Objective)
             .ThenBy(a => a.Verdict.FrequencyError)
@@ -200,6 +284,7 @@ internal sealed class SelectionEnumerator
     {
         Array.Clear(use);
         Array.Clear(lineRefs);
+        Array.Clear(reusable);
         usedLines.Clear();
         partialObjective = fixedObjective;
         foreach (var draw in problem.FixedDraws)
@@ -208,6 +293,8 @@ internal sealed class SelectionEnumerator
             {
                 usedLines.Add(draw.Line);
                 partialObjective += setup;
+                foreach (var s in slotsOnLine[draw.Line])
+                    reusable[s]++;
             }
             use[draw.Line] += draw.PerBoard;
             if (use[draw.Line] * problem.BuildQuantity > capacity[draw.Line])
@@ -227,64 +314,189 @@ internal sealed class SelectionEnumerator
             return Leaf();
         if ((++nodes & 1023) == 0 && (cancellation.IsCancellationRequested || DateTime.UtcNow >= deadline))
             stopped = true;
-        if (stopped)
+        if (stopped || (untilCutoff && limit is not null))
             return -1;
 
         var slot = order[depth];
         var (low, high) = AllowedLog(slot);
-        if (low > high)
+        if (!(low <= high))
             return depth - 1;
 
-        // First the options that add no line item, cheapest first; then the rest, cheapest first, until one
-        // would pass the cutoff even with the cheapest completion.
-        var reusing = ReusingOptions(slot);
-        foreach (var o in reusing)
+        // First the options that add no line item, then the rest, each cheapest first (at the slot that
+        // closes the frequency, equal costs nearest the target first, so the list's frequency errors, and
+        // with them the cutoff, tighten early); the rest only until one would pass the cutoff even with the
+        // cheapest completion. The cheapest completion is worked out once: the state is restored after
+        // every try.
+        var (count, reusing) = Candidates(depth, slot, low, high);
+        var candidates = buffers[depth];
+        var (rest, kinds) = LowerBoundOfRest(depth + 1);
+        var shared = (kinds & (1 << slotKind[slot])) != 0 ? setup : 0;
+        for (var i = 0; i < count; i++)
         {
-            var next = Try(depth, slot, o, low, high);
-            if (next < depth)
-                return next;
-        }
-        foreach (var o in byCost[slot])
-        {
-            if (reusing.Contains(o))
-                continue;
-            if (cutoff() is { } limit)
-            {
-                // A new line item costs its setup, less one the rest would need anyway of the same kind.
-                var (rest, kinds) = LowerBoundOfRest(depth + 1);
-                var shared = (kinds & (1 << slotKind[slot])) != 0 ? setup : 0;
-                if (partialObjective + objective[slot][o] + setup + rest - shared > limit.Cost)
-                    break;
-            }
-            var next = Try(depth, slot, o, low, high);
+            var o = candidates[i];
+            if (i >= reusing && limit is { } bound && partialObjective + objective[slot][o] + setup + rest - shared > bound.Cost)
+                break;
+            var next = Try(depth, slot, o);
             if (next < depth)
                 return next;
         }
         return depth - 1;
     }
 
-    /// <summary>Fills one slot with one option and goes deeper if the bounds allow; returns as <see cref="Descend"/> does for the level.</summary>
-    private int Try(int depth, int slot, int o, double low, double high)
+    /// <summary>
+    /// The options to try at <paramref name="depth"/>, inside the slot's log interval, into that depth's
+    /// buffer: first those drawing only lines already on the BOM, then the rest, each in cost order.
+    /// Returns how many, and how many of them reuse lines.
+    /// </summary>
+    private (int Count, int Reusing) Candidates(int depth, int slot, double low, double high)
     {
-        var value = logs[slot][o];
-        if (value < low || value > high)
-            return depth;
+        var buffer = buffers[depth];
+        var mark = ++stamp;
+        var count = 0;
+        var values = logs[slot];
+        void Reuse(int[] options)
+        {
+            foreach (var o in options)
+                if (values[o] >= low && values[o] <= high && marks[slot][o] != mark)
+                {
+                    marks[slot][o] = mark;
+                    buffer[count++] = o;
+                }
+        }
+        foreach (var line in usedLines)
+            Reuse(singleOption[slot][line]);
+        if (pairOptions[slot].Count > 0)
+            foreach (var a in usedLines)
+                foreach (var b in usedLines)
+                    if (a < b && pairOptions[slot].TryGetValue((a, b), out var both))
+                        Reuse(both);
+        var reusing = count;
+        var costs = objective[slot];
+        if ((exhausted & (1 << slotKind[slot])) == 0)
+        {
+            // The rest inside [low, high], found by bisection in the slot's options sorted by value.
+            var sorted = byLog[slot];
+            var sortedValues = sortedLogs[slot];
+            var from = LowerIndex(sortedValues, low);
+            for (var i = from; i < sorted.Length && sortedValues[i] <= high; i++)
+                if (marks[slot][sorted[i]] != mark)
+                    buffer[count++] = sorted[i];
+            SortSmall(buffer.AsSpan(reusing, count - reusing), new CheapestFirst(costs, values, double.NaN));
+        }
+
+        var cheapest = new CheapestFirst(costs, values, depth == frequencyDepth ? CentreOfBand(slot) ?? double.NaN : double.NaN);
+        SortSmall(buffer.AsSpan(0, reusing), cheapest);
+        if (!double.IsNaN(cheapest.Centre))
+            SortSmall(buffer.AsSpan(reusing, count - reusing), cheapest);
+        return (count, reusing);
+    }
+
+    /// <summary>Insertion sort for the few candidates of a deep slot (no delegate, no allocation); the library sort past 32.</summary>
+    private static void SortSmall(Span<int> items, CheapestFirst order)
+    {
+        if (items.Length > 32)
+        {
+            items.Sort(order);
+            return;
+        }
+        for (var i = 1; i < items.Length; i++)
+        {
+            var item = items[i];
+            var j = i - 1;
+            while (j >= 0 && order.Compare(items[j], item) > 0)
+            {
+                items[j + 1] = items[j];
+                j--;
+            }
+            items[j + 1] = item;
+        }
+    }
+
+    /// <summary>The first index whose value is at least <paramref name="value"/> (values sorted ascending).</summary>
+    private static int LowerIndex(double[] values, double value)
+    {
+        int lo = 0, hi = values.Length;
+        while (lo < hi)
+        {
+            var mid = (lo + hi) >>> 1;
+            if (values[mid] < value)
+                lo = mid + 1;
+            else
+                hi = mid;
+        }
+        return lo;
+    }
+
+    /// <summary>
+    /// Where the frequency bound puts the slot's log value for the band's centre (the middle of the interval
+    /// it leaves once the other terms are filled); null when the slot is not a plain term of it.
+    /// </summary>
+    private double? CentreOfBand(int slot)
+    {
+        if (frequencyBound < 0)
+            return null;
+        var bound = problem.Bounds[frequencyBound];
+        var coefficient = 0;
+        double restMin = 0, restMax = 0;
+        foreach (var term in bound.Terms)
+        {
+            if (term.Kind == TermKind.Slot && term.Index == slot)
+            {
+                coefficient += term.Coefficient;
+                continue;
+            }
+            var (min, max) = TermRange(term);
+            (restMin, restMax) = (restMin + min, restMax + max);
+        }
+        if (coefficient == 0 || !double.IsFinite(bound.Lower) || !double.IsFinite(bound.Upper) || double.IsNaN(restMin))
+            return null;
+        return ((bound.Lower + bound.Upper) / 2 - (restMin + restMax) / 2) / coefficient;
+    }
+
+    /// <summary>Fills one slot with one option and goes deeper if the bounds allow; returns as <see cref="Descend"/> does for the level.</summary>
+    private int Try(int depth, int slot, int o)
+    {
         var next = depth;
         if (depth == frequencyDepth)
             errorAtFrequencyDepth = double.NaN; // known again only after this option's partial check
-        if (Assign(slot, o) && WithinCutoff(depth) && BoundsHold(slot))
+        var before = exhausted;
+        if (Assign(slot, o))
         {
-            var check = PartialCheck(depth);
-            if (check > depth)
+            // The cheapest completion, once: it decides the cutoff, the kinds that can take no new line
+            // below (also for the next level), and whether a forecast may skip the judge.
+            var (rest, kinds) = LowerBoundOfRest(depth + 1);
+            var least = partialObjective + rest;
+            if (Admits(least, depth))
             {
-                needTopAbove[depth] = double.NegativeInfinity;
-                needBottomBelow[depth] = double.PositiveInfinity;
-                next = Descend(depth + 1);
+                exhausted = limit is { } bound && least + setup > bound.Cost ? ~kinds & 0b111 : 0;
+                if (BoundsHold(slot) && !(depth == frequencyDepth && RanksOutOnFrequency(least)))
+                {
+                    if (collecting && depth == frequencyDepth)
+                    {
+                        Collect(least);
+                        Unassign(slot, o);
+                        exhausted = before;
+                        return depth;
+                    }
+                    var check = PartialCheck(depth);
+                    if (check > depth)
+                    {
+                        needTopAbove[depth] = double.NegativeInfinity;
+                        needBottomBelow[depth] = double.PositiveInfinity;
+                        if (depth == dutyFrame)
+                        {
+                            tops.Clear();
+                            bottoms.Clear();
+                        }
+                        next = Descend(depth + 1);
+                    }
+                    else
+                        next = check;
+                }
             }
-            else
-                next = check;
         }
         Unassign(slot, o);
+        exhausted = before;
         return Math.Min(next, depth);
     }
 
@@ -292,16 +504,120 @@ internal sealed class SelectionEnumerator
     /// False when no completion can enter the list: it would cost more than the cutoff, or as much with a
     /// larger frequency error (known once the square-wave generator is filled).
     /// </summary>
-    private bool WithinCutoff(int depth)
+    private bool Admits(long least, int depth) =>
+        limit is not { } bound || least < bound.Cost || (least == bound.Cost && !(KnownError(depth) > bound.FrequencyError));
+
+    /// <summary>
+    /// True when every completion would tie the cutoff on cost at best and the forecast frequency error
+    /// (<see cref="FrequencyForecast"/>) ranks it after the cutoff: skipped without judging.
+    /// </summary>
+    private bool RanksOutOnFrequency(long least)
     {
-        if (cutoff() is not { } limit)
-            return true;
-        var least = partialObjective + LowerBoundOfRest(depth + 1).Bound;
-        return least < limit.Cost || (least == limit.Cost && !(KnownError(depth) > limit.FrequencyError));
+        if (forecast is null || !forecastTrusted || limit is not { } bound || least < bound.Cost)
+            return false;
+        var error = ForecastError();
+        return error > bound.FrequencyError * (1 + 1e-9) + 1e-15;
+    }
+
+    private double ForecastError()
+    {
+        var frequency = forecast!.Frequency(slot => values[slot][choice[slot]]);
+        return Math.Abs(frequency - frequencyTarget) / frequencyTarget;
     }
 
     /// <summary>The nominal frequency error of every completion, once the frequency's roles are filled (else NaN).</summary>
     private double KnownError(int depth) => frequencyDepth >= 0 && depth >= frequencyDepth ? errorAtFrequencyDepth : double.NaN;
+
+    /// <summary>A square-wave generator found in phase 2: its options in branching order, cheapest completion, forecast error.</summary>
+    private readonly record struct Generator(int Offset, long Least, double Error);
+
+    /// <summary>
+    /// Phase 2 (<see cref="Run"/>): collects every square-wave generator the bounds and the cutoff leave, sorts
+    /// them by cheapest completion then forecast frequency error, and completes each in turn; once one ranks
+    /// after the cutoff on those two, every later one does too, and the tree is done.
+    /// </summary>
+    private void ByGenerator()
+    {
+        // In bands of one line item's setup cost above the cheapest completion of the root: a band is
+        // collected under its own ceiling (a cheap walk, the bound prunes hard), so the walk never runs under
+        // a loose early cutoff; the designs each band completes tighten the cutoff for the next.
+        var floor = long.MinValue;
+        var ceiling = partialObjective + LowerBoundOfRest(0).Bound;
+        while (limit is { } start && floor < start.Cost)
+        {
+            ceiling = Math.Min(ceiling, start.Cost);
+            generators.Clear();
+            generatorOptions.Clear();
+            limit = new SearchCutoff(ceiling, double.PositiveInfinity);
+            (collecting, collectAbove) = (true, floor);
+            Descend(0);
+            collecting = false;
+            limit = cutoff();
+            if (stopped)
+                return;
+            Complete();
+            if (stopped)
+                return;
+            // Without a setup cost there are no line-item steps to band by: one band up to the cutoff.
+            floor = ceiling;
+            ceiling = setup > 0 ? ceiling + setup : long.MaxValue / 4;
+        }
+    }
+
+    /// <summary>Completes the collected square-wave generators in rank order until one ranks after the cutoff.</summary>
+    private void Complete()
+    {
+        var sorted = generators.ToArray();
+        Array.Sort(sorted, (a, b) => a.Least != b.Least ? a.Least.CompareTo(b.Least)
+            : a.Error != b.Error ? a.Error.CompareTo(b.Error) : a.Offset.CompareTo(b.Offset));
+        var width = frequencyDepth + 1;
+        foreach (var generator in sorted)
+        {
+            if (limit is { } bound && (generator.Least > bound.Cost
+                || (forecastTrusted && generator.Least == bound.Cost && generator.Error > bound.FrequencyError * (1 + 1e-9) + 1e-15)))
+                break;
+            if (cancellation.IsCancellationRequested || DateTime.UtcNow >= deadline)
+            {
+                stopped = true;
+                return;
+            }
+            var filled = 0;
+            var fits = true;
+            for (; filled < width && fits; filled++)
+                fits = Assign(order[filled], generatorOptions[generator.Offset + filled]);
+            var least = partialObjective + LowerBoundOfRest(width).Bound;
+            errorAtFrequencyDepth = double.NaN;
+            for (var d = 0; d < width; d++)
+                (needTopAbove[d], needBottomBelow[d]) = (double.NegativeInfinity, double.PositiveInfinity);
+            if (dutyFrame < width)
+            {
+                tops.Clear();
+                bottoms.Clear();
+            }
+            if (fits && Admits(least, frequencyDepth))
+            {
+                var before = exhausted;
+                exhausted = Exhausted(width);
+                if (PartialCheck(frequencyDepth) > frequencyDepth)
+                    Descend(width);
+                exhausted = before;
+            }
+            for (var d = filled - 1; d >= 0; d--)
+                Unassign(order[d], generatorOptions[generator.Offset + d]);
+            if (stopped)
+                return;
+        }
+    }
+
+    private void Collect(long least)
+    {
+        if (least <= collectAbove)
+            return; // completed in an earlier band
+        var offset = generatorOptions.Count;
+        for (var d = 0; d <= frequencyDepth; d++)
+            generatorOptions.Add(choice[order[d]]);
+        generators.Add(new Generator(offset, least, forecastTrusted ? ForecastError() : 0));
+    }
 
     /// <summary>
     /// Judges a partial design when the roles just filled complete a scope: the unfilled roles take
@@ -323,7 +639,12 @@ internal sealed class SelectionEnumerator
         if (depth == frequencyDepth)
         {
             errorAtFrequencyDepth = judgement?.FrequencyError ?? double.NaN;
-            if (!WithinCutoff(depth))
+            // The forecast checks itself against every judgement: any disagreement and it is not used again.
+            if (forecast is not null && judgement is not null && double.IsFinite(judgement.FrequencyError)
+                && ForecastError() is var forecastError && double.IsFinite(forecastError)
+                && Math.Abs(forecastError - judgement.FrequencyError) > 1e-9 * Math.Max(judgement.FrequencyError, 1e-9))
+                forecastTrusted = false;
+            if (!Admits(partialObjective + LowerBoundOfRest(depth + 1).Bound, depth))
                 return depth;
         }
         if (judgement is null || judgement.Accepted)
@@ -376,35 +697,119 @@ internal sealed class SelectionEnumerator
         var snapshot = (int[])choice.Clone();
         foreach (var (es, eo) in extra)
             Unassign(es, eo);
-        if (cutoff() is { } c && (total > c.Cost || (total == c.Cost && KnownError(depth) > c.FrequencyError)))
+        if (limit is { } c && RanksAfter(c, total, depth, snapshot))
+            return depth - 1;
+
+        if (limit is { } tie && DutyMarginRanksAfter(tie, total, depth, snapshot))
             return depth - 1;
 
         Judged++;
         var verdict = verify(snapshot);
+        if (verdict.Payload is DesignJudgement judged)
+            LearnDuty(judged);
         if (verdict.Accepted)
         {
             onAccepted(new AcceptedChoice(snapshot, total, verdict));
             return depth - 1;
         }
-        if (verdict.CutGroup is not null || verdict.CutEscapeOptions is not null)
+        if (verdict.Payload is not DesignJudgement judgement || judgement.Accepted)
+            return verdict.CutSlots is { } cut ? cut.Max(s => position[s]) : depth - 1; // invalid, or a yield short
+        var plain = variant.PlainScope(judgement);
+        if (plain.Count < roleCount || !judgement.Missed.Contains(MissedTarget.DutyRange))
+            return plain.Max(s => position[s]);
+        if (variant.Prototype.DutyControl is ControlVoltageDuty)
+            return rampSlots.Max(s => position[s]); // the duty then depends on the ramp alone
+        // A missed duty range: duty falls as the threshold rises, so with the same ramp every divider reaching
+        // no further at the failing end fails too. Learnt for the subtree of the ramp's last role.
+        if (dividerDepth >= 0 && rampSlots.All(s => position[s] < dividerDepth - 2))
         {
-            // A missed duty range: every divider reaching no further fails with the same ramp.
-            if (dividerDepth >= 0 && verdict.CutSlots is { } rampSlots && rampSlots.All(s => position[s] < dividerDepth - 2))
-            {
-                var frame = rampSlots.Max(s => position[s]);
-                var (top, bottom) = Thresholds();
-                var judgement = (DesignJudgement)verdict.Payload!;
-                if (judgement.MissesLowDuty)
-                    needTopAbove[frame] = Math.Max(needTopAbove[frame], top);
-                if (judgement.MissesHighDuty)
-                    needBottomBelow[frame] = Math.Min(needBottomBelow[frame], bottom);
-            }
-            return depth - 1;
+            var frame = rampSlots.Max(s => position[s]);
+            var (top, bottom) = Thresholds();
+            if (judgement.MissesLowDuty)
+                needTopAbove[frame] = Math.Max(needTopAbove[frame], top);
+            if (judgement.MissesHighDuty)
+                needBottomBelow[frame] = Math.Min(needBottomBelow[frame], bottom);
         }
-        var target = verdict.CutSlots is { } slots ? slots.Max(s => position[s]) : depth - 1;
-        if (verdict.Payload is DesignJudgement rejected)
-            target = Math.Min(target, variant.PlainScope(rejected).Max(s => position[s]));
-        return target;
+        return depth - 1;
+    }
+
+    /// <summary>
+    /// True when a whole design, not yet judged, cannot rank before the cutoff: dearer; as dear with a larger
+    /// frequency error; or as dear with the same error, where its margin can be no larger than the frequency's
+    /// own (the tolerance less the error) and so must beat or tie the cutoff's, a tie going to the key.
+    /// </summary>
+    private bool RanksAfter(SearchCutoff cut, long total, int depth, int[] design)
+    {
+        if (total != cut.Cost)
+            return total > cut.Cost;
+        var error = KnownError(depth);
+        if (!(error <= cut.FrequencyError))
+            return error > cut.FrequencyError;
+        if (error < cut.FrequencyError || cut.Key is null)
+            return false;
+        var marginAtMost = frequencyTolerance - error;
+        return marginAtMost < cut.Margin
+            || (marginAtMost == cut.Margin && string.CompareOrdinal(DesignAssembler.Key(variant, design), cut.Key) > 0);
+    }
+
+    /// <summary>
+    /// With the rest of the design fixed, duty falls as the threshold rises (the fact the duty cut rests on).
+    /// So a divider whose top threshold is at most a judged sibling's reaches a lowest duty at least that
+    /// sibling's, and one whose bottom is at least a sibling's a highest duty at most its: each bounds the
+    /// duty margin, min(duty min − lowest, highest − duty max), from above without judging. A design tied
+    /// on cost and frequency error whose margin can then not beat the cutoff's ranks after it (a tie on the
+    /// margin going to the key).
+    /// </summary>
+    private bool DutyMarginRanksAfter(SearchCutoff cut, long total, int depth, int[] design)
+    {
+        if (!learnsDuty || total != cut.Cost || cut.Key is null)
+            return false;
+        var error = KnownError(depth);
+        if (!(error == cut.FrequencyError))
+            return false;
+        var (top, bottom) = Thresholds();
+        var bound = frequencyTolerance - error;
+        // Sibling with the least top threshold at or above this one; the greatest bottom at or below.
+        var above = Bisect(tops, top);
+        if (above < tops.Count)
+            bound = Math.Min(bound, dutyMin - tops[above].Duty);
+        var below = Bisect(bottoms, bottom);
+        if (below < bottoms.Count && bottoms[below].Threshold == bottom)
+            below++;
+        if (below > 0)
+            bound = Math.Min(bound, bottoms[below - 1].Duty - dutyMax);
+        return bound < cut.Margin
+            || (bound == cut.Margin && string.CompareOrdinal(DesignAssembler.Key(variant, design), cut.Key) > 0);
+    }
+
+    /// <summary>Records a judged leaf's duty at its two thresholds, for its siblings under the same ramp.</summary>
+    private void LearnDuty(DesignJudgement judgement)
+    {
+        if (!learnsDuty)
+            return;
+        var atMin = judgement.Evaluation.Figure(FigureNames.DutyAtSettingMin) ?? double.NaN;
+        var atMax = judgement.Evaluation.Figure(FigureNames.DutyAtSettingMax) ?? double.NaN;
+        double lowest = Math.Min(atMin, atMax), highest = Math.Max(atMin, atMax);
+        if (!double.IsFinite(lowest) || !double.IsFinite(highest))
+            return;
+        var (top, bottom) = Thresholds();
+        tops.Insert(Bisect(tops, top), (top, lowest));
+        bottoms.Insert(Bisect(bottoms, bottom), (bottom, highest));
+    }
+
+    /// <summary>The first index whose threshold is at least <paramref name="threshold"/> (sorted ascending).</summary>
+    private static int Bisect(List<(double Threshold, double Duty)> samples, double threshold)
+    {
+        int lo = 0, hi = samples.Count;
+        while (lo < hi)
+        {
+            var mid = (lo + hi) >>> 1;
+            if (samples[mid].Threshold < threshold)
+                lo = mid + 1;
+            else
+                hi = mid;
+        }
+        return lo;
     }
 
     /// <summary>The threshold divider's top and bottom thresholds, as fractions of the supply span.</summary>
@@ -442,6 +847,8 @@ internal sealed class SelectionEnumerator
             {
                 usedLines.Add(line);
                 partialObjective += setup;
+                foreach (var s in slotsOnLine[line])
+                    reusable[s]++;
             }
         return fits;
     }
@@ -457,24 +864,9 @@ internal sealed class SelectionEnumerator
             {
                 usedLines.Remove(line);
                 partialObjective -= setup;
+                foreach (var s in slotsOnLine[line])
+                    reusable[s]--;
             }
-    }
-
-    /// <summary>The options of a slot that draw only lines already on the BOM.</summary>
-    private List<int> ReusingOptions(int slot)
-    {
-        var result = new List<int>();
-        foreach (var line in usedLines)
-            if (singleOption[slot][line] is >= 0 and var o)
-                result.Add(o);
-        if (pairOptions[slot].Count > 0)
-            foreach (var a in usedLines)
-                foreach (var b in usedLines)
-                    if (a <= b && pairOptions[slot].TryGetValue((a, b), out var o))
-                        result.Add(o);
-        // A line may carry more than one option of the slot only through duplicates; keep the cheapest order.
-        result.Sort((x, y) => objective[slot][x] != objective[slot][y] ? objective[slot][x].CompareTo(objective[slot][y]) : x.CompareTo(y));
-        return result;
     }
 
     /// <summary>
@@ -483,33 +875,28 @@ internal sealed class SelectionEnumerator
     /// </summary>
     private (long Bound, int Kinds) LowerBoundOfRest(int depth)
     {
-        var bound = 0L;
+        var bound = cheapestFrom[depth];
         var kinds = 0;
         for (var d = depth; d < order.Length; d++)
         {
             var slot = order[d];
-            bound += minObjective[slot];
             if ((kinds & (1 << slotKind[slot])) == 0 && !CanReuse(slot))
                 kinds |= 1 << slotKind[slot];
         }
         for (var s = roleCount; s < problem.Slots.Count; s++)
-        {
-            bound += minObjective[s];
             if ((kinds & (1 << slotKind[s])) == 0 && !CanReuse(s))
                 kinds |= 1 << slotKind[s];
-        }
         return (bound + System.Numerics.BitOperations.PopCount((uint)kinds) * setup, kinds);
     }
 
     private bool CanReuse(int slot)
     {
-        foreach (var line in usedLines)
-            if (singleOption[slot][line] >= 0)
-                return true;
+        if (reusable[slot] > 0)
+            return true;
         if (pairOptions[slot].Count > 0)
             foreach (var a in usedLines)
                 foreach (var b in usedLines)
-                    if (a <= b && pairOptions[slot].ContainsKey((a, b)))
+                    if (a < b && pairOptions[slot].ContainsKey((a, b)))
                         return true;
         return false;
     }
@@ -603,7 +990,7 @@ internal sealed class SelectionEnumerator
             case TermKind.Slot:
                 (min, max) = assigned[term.Index]
                     ? (logs[term.Index][choice[term.Index]], logs[term.Index][choice[term.Index]])
-                    : slotRange[term.Index];
+                    : (exhausted & (1 << slotKind[term.Index])) != 0 ? ReusableRange(term.Index) : slotRange[term.Index];
                 break;
             case TermKind.Buckets:
                 (min, max) = BucketRange(term.Index);
@@ -617,16 +1004,61 @@ internal sealed class SelectionEnumerator
         return term.Coefficient >= 0 ? (term.Coefficient * min, term.Coefficient * max) : (term.Coefficient * max, term.Coefficient * min);
     }
 
+    /// <summary>
+    /// The log range of the options of an unfilled slot that draw only lines already on the BOM (what it may
+    /// take once its kind can afford no new line); NaN when there is none.
+    /// </summary>
+    private (double Min, double Max) ReusableRange(int slot)
+    {
+        double min = double.PositiveInfinity, max = double.NegativeInfinity;
+        var values = logs[slot];
+        foreach (var line in usedLines)
+            foreach (var o in singleOption[slot][line])
+                (min, max) = (Math.Min(min, values[o]), Math.Max(max, values[o]));
+        if (pairOptions[slot].Count > 0)
+            foreach (var a in usedLines)
+                foreach (var b in usedLines)
+                    if (a < b && pairOptions[slot].TryGetValue((a, b), out var both))
+                        foreach (var o in both)
+                            (min, max) = (Math.Min(min, values[o]), Math.Max(max, values[o]));
+        return min <= max ? (min, max) : (double.NaN, double.NaN);
+    }
+
+    /// <summary>
+    /// The kinds of part (bit per <see cref="RoleKind"/>) that can afford no new line item below
+    /// <paramref name="depth"/>: the cheapest completion does not already pay for one of that kind, and one
+    /// more would pass the cutoff. Their unfilled slots can only take lines already on the BOM.
+    /// </summary>
+    private int Exhausted(int depth)
+    {
+        if (limit is not { } bound)
+            return 0;
+        var (rest, kinds) = LowerBoundOfRest(depth);
+        return partialObjective + rest + setup > bound.Cost ? ~kinds & 0b111 : 0;
+    }
+
     private (double Min, double Max) BucketRange(int index)
     {
         var buckets = problem.Buckets[index];
         var ratio = 0.0;
+        var key = 0L;
         foreach (var term in buckets.Ratio)
         {
             if (!assigned[term.Index])
                 return bucketRange[index];
             ratio += term.Coefficient * logs[term.Index][choice[term.Index]];
+            key = key * 1_000_003 + choice[term.Index] + 1;
         }
+        if (bucketMemo[index].Key == key)
+            return bucketMemo[index].Range;
+        var range = FindBucket(buckets, ratio);
+        bucketMemo[index] = (key, range);
+        return range;
+    }
+
+    /// <summary>The factor range of the bucket(s) holding a ratio; NaN when no stocked pair has it.</summary>
+    private static (double Min, double Max) FindBucket(RatioBuckets buckets, double ratio)
+    {
         // Edges are sorted; a ratio no stocked pair of the buckets has cannot work (that pair was left out).
         double min = double.PositiveInfinity, max = double.NegativeInfinity;
         var edges = buckets.Edges;
@@ -743,5 +1175,24 @@ internal sealed class SelectionEnumerator
             if (c >= 0 && c < order.Count - 1)
                 checkAfter[c] = true;
         return (order.ToArray(), checkAfter);
+    }
+
+    /// <summary>Options cheapest first; at equal cost nearest a log value (when one is given), then by index.</summary>
+    private readonly struct CheapestFirst(long[] costs, double[] logs, double centre) : IComparer<int>
+    {
+        public double Centre => centre;
+
+        public int Compare(int x, int y)
+        {
+            if (costs[x] != costs[y])
+                return costs[x].CompareTo(costs[y]);
+            if (!double.IsNaN(centre))
+            {
+                double dx = Math.Abs(logs[x] - centre), dy = Math.Abs(logs[y] - centre);
+                if (dx != dy)
+                    return dx.CompareTo(dy);
+            }
+            return x.CompareTo(y);
+        }
     }
 }

@@ -159,6 +159,19 @@ internal struct Waveform
     private static bool RelaxationCanSwitch(in Waveform w, double beta, double offsetV) =>
         (1 - beta) * Math.Min(w.LevelHighRel, -w.LevelLowRel) > offsetV;
 
+    /// <summary>
+    /// High and low times of the Schmitt-and-integrator loop (thresholds −k·L± about the reference, integrator
+    /// time constant τ, output edges t_e that shift the ramp); NaN for both when a ramp time is not positive.
+    /// The search forecasts the loop's frequency with this same function.
+    /// </summary>
+    internal static (double High, double Low) LoopHalfPeriods(double tauI, double k, double lp, double lm, double te)
+    {
+        var shift = -te * (lp + lm) / (2 * tauI);
+        var fall = (k * (lp - lm) + shift) * tauI / lp;
+        var rise = (k * (lp - lm) - shift) * tauI / -lm;
+        return fall > 0 && rise > 0 ? (fall + te, rise + te) : (double.NaN, double.NaN);
+    }
+
     private static bool Loop(in CircuitValues v, ref Waveform w)
     {
         double lp = w.LevelHighRel, lm = w.LevelLowRel, te = w.AmpEdgeS;
@@ -167,13 +180,11 @@ internal struct Waveform
         if (!(k * lp < -lm && -k * lm < lp))
             return false;
         var tauI = v.IntR * v.IntC;
-        var shift = -te * (lp + lm) / (2 * tauI);
-        var fall = (k * (lp - lm) + shift) * tauI / lp;
-        var rise = (k * (lp - lm) - shift) * tauI / -lm;
-        if (!(fall > 0 && rise > 0))
+        var (high, low) = LoopHalfPeriods(tauI, k, lp, lm, te);
+        if (!double.IsFinite(high))
             return false;
-        w.HighTimeS = fall + te;
-        w.LowTimeS = rise + te;
+        w.HighTimeS = high;
+        w.LowTimeS = low;
         w.PeriodS = w.HighTimeS + w.LowTimeS;
         var slewTimesTau = 2 * v.AmpSlewRate * tauI;
         w.RampMaxRel = -k * lm + lm * lm / slewTimesTau;
