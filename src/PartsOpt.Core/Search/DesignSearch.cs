@@ -1,3 +1,4 @@
+using System.Collections.Concurrent;
 using System.Diagnostics;
 using PartsOpt.Topologies;
 
@@ -75,17 +76,23 @@ public static class DesignSearch
         var judged = 0L;
         var variants = plans.SelectMany(p => p.Variants)
             .OrderBy(v => v.LowerBound).ThenBy(v => v.Topology).ToList();
-        for (var i = 0; i < variants.Count; i++)
+        var gate = new object();
+        // Variants run side by side, one per core, taken cheapest bound first; they share the list and its
+        // cutoff. Each is exact under any cutoff it reads, so the outcome does not depend on the interleaving.
+        Parallel.ForEach(
+            Partitioner.Create(variants, EnumerablePartitionerOptions.NoBuffering),
+            new ParallelOptions { MaxDegreeOfParallelism = Math.Max(1, Environment.ProcessorCount) },
+            variant =>
         {
-            var variant = variants[i];
             var remaining = deadline - DateTime.UtcNow;
             if (cancellation.IsCancellationRequested || remaining <= TimeSpan.Zero)
             {
-                complete[variant.Topology] = false;
-                continue;
+                lock (gate)
+                    complete[variant.Topology] = false;
+                return;
             }
             if (list.Cutoff(variant.Topology) is { } limit && variant.LowerBound * variant.CostScale > limit.Cost)
-                continue; // proved: nothing this variant builds can enter the list
+                return; // proved: nothing this variant builds can enter the list
             var enumerator = new SelectionEnumerator(variant);
             var run = enumerator.Run(
                 choice => Verify(variant, choice, yieldCheck, tracker, forModel: false),
@@ -93,16 +100,19 @@ public static class DesignSearch
                 () => list.Cutoff(variant.Topology),
                 accepted =>
                 {
-                    found.Add((variant, accepted));
-                    list.Add(variant.Topology, new SearchCutoff(accepted.Objective, accepted.Verdict.FrequencyError,
-                        accepted.Verdict.Margin, DesignAssembler.Key(variant, accepted.Choice)));
+                    var rank = new SearchCutoff(accepted.Objective, accepted.Verdict.FrequencyError,
+                        accepted.Verdict.Margin, DesignAssembler.Key(variant, accepted.Choice));
+                    lock (gate)
+                        found.Add((variant, accepted));
+                    list.Add(variant.Topology, rank);
                 },
                 deadline,
                 cancellation);
-            judged += run.Solves;
+            Interlocked.Add(ref judged, run.Solves);
             if (!run.Complete)
-                complete[variant.Topology] = false;
-        }
+                lock (gate)
+                    complete[variant.Topology] = false;
+        });
         return (int)Math.Min(judged, int.MaxValue);
     }
 
@@ -294,23 +304,31 @@ public static class DesignSearch
         private readonly PriorityQueue<SearchCutoff, SearchCutoff> kept = new(Descending);
         private readonly Dictionary<TopologyKind, SearchCutoff> best = [];
 
+        private readonly Lock gate = new();
+
         public void Add(TopologyKind topology, SearchCutoff rank)
         {
-            if (!best.TryGetValue(topology, out var own) || rank.CompareTo(own) < 0)
-                best[topology] = rank;
-            if (kept.Count < wanted)
-                kept.Enqueue(rank, rank);
-            else if (rank.CompareTo(kept.Peek()) < 0)
-                kept.EnqueueDequeue(rank, rank);
+            lock (gate)
+            {
+                if (!best.TryGetValue(topology, out var own) || rank.CompareTo(own) < 0)
+                    best[topology] = rank;
+                if (kept.Count < wanted)
+                    kept.Enqueue(rank, rank);
+                else if (rank.CompareTo(kept.Peek()) < 0)
+                    kept.EnqueueDequeue(rank, rank);
+            }
         }
 
         /// <summary>Designs ranked after both the K-th so far and this topology's best cannot enter the list.</summary>
         public SearchCutoff? Cutoff(TopologyKind topology)
         {
-            if (kept.Count < wanted || !best.TryGetValue(topology, out var own))
-                return null;
-            var kth = kept.Peek();
-            return kth.CompareTo(own) >= 0 ? kth : own;
+            lock (gate)
+            {
+                if (kept.Count < wanted || !best.TryGetValue(topology, out var own))
+                    return null;
+                var kth = kept.Peek();
+                return kth.CompareTo(own) >= 0 ? kth : own;
+            }
         }
     }
 }

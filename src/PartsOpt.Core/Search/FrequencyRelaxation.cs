@@ -172,10 +172,9 @@ internal static class FrequencyRelaxation
     private static (RatioBuckets Buckets, RatioBuckets EdgeBuckets, double UpperEdgeMultiplier)? SharedDividerBuckets(
         SearchVariant variant, IReadOnlyList<SelectionSlot> slots, int r1, int r2, IReadOnlyList<double> references, Levels levels)
     {
-        var cache = variant.Context.DividerBuckets;
-        if (!cache.TryGetValue(variant.AmplifierIndex, out var divider))
-            cache[variant.AmplifierIndex] = divider = DividerBuckets(slots, r1, r2, references, levels, levels.Amp.InputOffsetV);
-        return divider;
+        // Variants are made on first use, by whichever thread searches them.
+        return variant.Context.DividerBuckets.GetOrAdd(variant.AmplifierIndex,
+            _ => new Lazy<(RatioBuckets, RatioBuckets, double)?>(() => DividerBuckets(slots, r1, r2, references, levels, levels.Amp.InputOffsetV))).Value;
     }
 
     /// <summary>

@@ -12,13 +12,24 @@ internal sealed class MissTracker
     private readonly Dictionary<TopologyKind, (SearchVariant Variant, int[] Choice, DesignJudgement Judgement)> nearest = [];
     private readonly Dictionary<TopologyKind, List<string>> other = [];
 
+    private readonly Lock gate = new();
+
+    /// <summary>
+    /// Records a rejection; the nearest miss is the smallest shortfall, ties going to the smaller key, so the
+    /// report does not depend on the order variants searched side by side happen to find them.
+    /// </summary>
     public void Rejected(SearchVariant variant, int[] choice, DesignJudgement judgement)
     {
-        var tally = counts.TryGetValue(variant.Topology, out var t) ? t : counts[variant.Topology] = [];
-        foreach (var missed in judgement.Missed.Distinct())
-            tally[missed] = tally.GetValueOrDefault(missed) + 1;
-        if (!nearest.TryGetValue(variant.Topology, out var best) || judgement.Shortfall < best.Judgement.Shortfall)
-            nearest[variant.Topology] = (variant, choice, judgement);
+        lock (gate)
+        {
+            var tally = counts.TryGetValue(variant.Topology, out var t) ? t : counts[variant.Topology] = [];
+            foreach (var missed in judgement.Missed.Distinct())
+                tally[missed] = tally.GetValueOrDefault(missed) + 1;
+            if (!nearest.TryGetValue(variant.Topology, out var best) || judgement.Shortfall < best.Judgement.Shortfall
+                || (judgement.Shortfall == best.Judgement.Shortfall
+                    && string.CompareOrdinal(DesignAssembler.Key(variant, choice), DesignAssembler.Key(best.Variant, best.Choice)) < 0))
+                nearest[variant.Topology] = (variant, (int[])choice.Clone(), judgement);
+        }
     }
 
     public void Invalid(SearchVariant variant, string message) => Other(variant.Topology, message);
@@ -41,7 +52,11 @@ internal sealed class MissTracker
 
     private void Other(TopologyKind topology, string message)
     {
-        var list = other.TryGetValue(topology, out var l) ? l : other[topology] = [];
-        list.Add(message);
+        lock (gate)
+        {
+            var list = other.TryGetValue(topology, out var l) ? l : other[topology] = [];
+            if (list.Count < 1000)
+                list.Add(message);
+        }
     }
 }

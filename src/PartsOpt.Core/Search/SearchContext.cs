@@ -41,7 +41,7 @@ internal sealed class SearchContext
     /// The relaxation oscillator's ratio buckets for an amplifier (they depend on its levels and offset and on
     /// the stocked resistors only), made once and shared by the variants that use it.
     /// </summary>
-    internal Dictionary<int, (RatioBuckets Buckets, RatioBuckets EdgeBuckets, double UpperEdgeMultiplier)?> DividerBuckets { get; } = [];
+    internal System.Collections.Concurrent.ConcurrentDictionary<int, Lazy<(RatioBuckets Buckets, RatioBuckets EdgeBuckets, double UpperEdgeMultiplier)?>> DividerBuckets { get; } = [];
 
     public SearchRequirement Requirement { get; }
     public Stock Stock { get; }

@@ -262,6 +262,10 @@ internal sealed class SelectionEnumerator
                 // Phase 1: depth first until the list has a cutoff. Phase 2: every square-wave generator
                 // within it, collected with its cheapest completion and forecast frequency error, then
                 // completed in rank order until the next one ranks after the cutoff.
+                // A quick design by one-role repairs (judged like any other) usually gives the list its
+                // cutoff at once, so phase 1 has nothing left to do.
+                if (limit is null && StartingDesign.Find(variant, Min(deadline, DateTime.UtcNow + QuickStartBudget)) is { } start)
+                    Whole(start);
                 untilCutoff = limit is null;
                 if (untilCutoff)
                     Descend(0);
@@ -312,8 +316,15 @@ internal sealed class SelectionEnumerator
     {
         if (depth == order.Length)
             return Leaf();
-        if ((++nodes & 1023) == 0 && (cancellation.IsCancellationRequested || DateTime.UtcNow >= deadline))
-            stopped = true;
+        if ((++nodes & 1023) == 0)
+        {
+            if (cancellation.IsCancellationRequested || DateTime.UtcNow >= deadline)
+                stopped = true;
+            // Variants running beside this one tighten the shared cutoff too (not while a band is collected
+            // under its own ceiling).
+            if (!collecting && cutoff() is { } latest && (limit is not { } own || latest.CompareTo(own) < 0))
+                limit = latest;
+        }
         if (stopped || (untilCutoff && limit is not null))
             return -1;
 
@@ -378,10 +389,23 @@ internal sealed class SelectionEnumerator
             var sorted = byLog[slot];
             var sortedValues = sortedLogs[slot];
             var from = LowerIndex(sortedValues, low);
-            for (var i = from; i < sorted.Length && sortedValues[i] <= high; i++)
-                if (marks[slot][sorted[i]] != mark)
-                    buffer[count++] = sorted[i];
-            SortSmall(buffer.AsSpan(reusing, count - reusing), new CheapestFirst(costs, values, double.NaN));
+            var to = LowerIndex(sortedValues, high);
+            while (to < sorted.Length && sortedValues[to] <= high)
+                to++;
+            if (to - from > 32)
+            {
+                // A wide interval: the options already in cost order, filtered, beat sorting them.
+                foreach (var o in byCost[slot])
+                    if (marks[slot][o] != mark && values[o] >= low && values[o] <= high)
+                        buffer[count++] = o;
+            }
+            else
+            {
+                for (var i = from; i < to; i++)
+                    if (marks[slot][sorted[i]] != mark)
+                        buffer[count++] = sorted[i];
+                SortSmall(buffer.AsSpan(reusing, count - reusing), new CheapestFirst(costs, values, double.NaN));
+            }
         }
 
         var cheapest = new CheapestFirst(costs, values, depth == frequencyDepth ? CentreOfBand(slot) ?? double.NaN : double.NaN);
@@ -527,6 +551,34 @@ internal sealed class SelectionEnumerator
 
     /// <summary>The nominal frequency error of every completion, once the frequency's roles are filled (else NaN).</summary>
     private double KnownError(int depth) => frequencyDepth >= 0 && depth >= frequencyDepth ? errorAtFrequencyDepth : double.NaN;
+
+    /// <summary>
+    /// Judges one whole design given by its roles (the extra slots taken cheapest, as at a leaf) and lists it
+    /// if the engine accepts it.
+    /// </summary>
+    private void Whole(int[] design)
+    {
+        var filled = 0;
+        var fits = true;
+        for (; filled < order.Length && fits; filled++)
+            fits = Assign(order[filled], design[order[filled]]);
+        if (fits)
+        {
+            Array.Fill(needTopAbove, double.NegativeInfinity);
+            Array.Fill(needBottomBelow, double.PositiveInfinity);
+            var saved = limit;
+            limit = null; // a design outside any cutoff is still a design
+            Leaf();
+            limit = saved ?? cutoff();
+        }
+        for (var d = filled - 1; d >= 0; d--)
+            Unassign(order[d], design[order[d]]);
+    }
+
+    private static DateTime Min(DateTime a, DateTime b) => a < b ? a : b;
+
+    /// <summary>Longest the quick starting design may take: past it, phase 1 finds the first design anyway.</summary>
+    public static readonly TimeSpan QuickStartBudget = TimeSpan.FromMilliseconds(50);
 
     /// <summary>A square-wave generator found in phase 2: its options in branching order, cheapest completion, forecast error.</summary>
     private readonly record struct Generator(int Offset, long Least, double Error);
