@@ -8,7 +8,7 @@ namespace PartsOpt.Api.DesignSearches;
 /// <remarks>
 /// <c>optimalityProved</c>: True when the solver proved no cheaper design exists (status "optimal").<br/>
 /// <c>elapsedSeconds</c>: Wall time the search took.<br/>
-/// <c>solves</c>: CP-SAT solves made.<br/>
+/// <c>solves</c>: the search's units of work (designs the engine judged, whole or partial).<br/>
 /// <c>topologies</c>: Per topology: feasible, or what blocked it, the nearest miss and a purchase hint.<br/>
 /// <c>cautions</c>: Read before building: the PWM output usually drives a power stage.<br/>
 /// </remarks>

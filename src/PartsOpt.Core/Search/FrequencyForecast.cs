@@ -42,20 +42,21 @@ internal sealed class FrequencyForecast
         return forecast;
     }
 
-    /// <summary>The nominal frequency, given each slot's part value; NaN when no period comes out.</summary>
-    public double Frequency(Func<int, double> value)
+    /// <summary>The nominal frequency, given each slot's option values and the option chosen in each; NaN when no period comes out.</summary>
+    public double Frequency(double[][] values, int[] choice)
     {
+        double Value(int slot) => values[slot][choice[slot]];
         // As the engine's waveform: levels about the reference, the amplifier's edge over the whole swing.
-        var reference = single ? positiveV * value(referenceBottom) / (value(referenceTop) + value(referenceBottom)) : 0;
+        var reference = single ? positiveV * Value(referenceBottom) / (Value(referenceTop) + Value(referenceBottom)) : 0;
         var lp = positiveV - headroomHigh - reference;
         var lm = negativeV + headroomLow - reference;
         if (!(lp > 0 && lm < 0))
             return double.NaN;
         double high, low;
         if (topology == TopologyKind.Loop)
-            (high, low) = Waveform.LoopHalfPeriods(value(first) * value(second), value(ratioTop) / value(ratioBottom), lp, lm, (lp - lm) / slewRate);
+            (high, low) = Waveform.LoopHalfPeriods(Value(first) * Value(second), Value(ratioTop) / Value(ratioBottom), lp, lm, (lp - lm) / slewRate);
         else
-            (high, low) = RelaxationTiming.HalfPeriods(value(first) * value(second), value(ratioBottom) / (value(ratioTop) + value(ratioBottom)), lp, lm, slewRate);
+            (high, low) = RelaxationTiming.HalfPeriods(Value(first) * Value(second), Value(ratioBottom) / (Value(ratioTop) + Value(ratioBottom)), lp, lm, slewRate);
         var period = high + low;
         return double.IsFinite(period) && period > 0 ? 1 / period : double.NaN;
     }

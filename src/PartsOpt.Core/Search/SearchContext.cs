@@ -43,6 +43,10 @@ internal sealed class SearchContext
     /// </summary>
     internal System.Collections.Concurrent.ConcurrentDictionary<int, Lazy<(RatioBuckets Buckets, RatioBuckets EdgeBuckets, double UpperEdgeMultiplier)?>> DividerBuckets { get; } = [];
 
+    /// <summary>The branch and bound's tables of each option list (costs, lines, logs, orders), shared by every variant.</summary>
+    internal System.Collections.Concurrent.ConcurrentDictionary<IReadOnlyList<SlotOption>, SelectionEnumerator.SlotTable> EnumeratorTables { get; } =
+        new(ReferenceEqualityComparer.Instance);
+
     public SearchRequirement Requirement { get; }
     public Stock Stock { get; }
     public IReadOnlyList<StockLine> Lines { get; }

@@ -122,7 +122,8 @@ public sealed record TopologyReport(
 /// <param name="Status">Optimal, feasible (not proved), infeasible or unknown.</param>
 /// <param name="Designs">Up to the requested number of designs in rank order, plus the best of every feasible topology.</param>
 /// <param name="Topologies">Per topology: feasible or why not.</param>
-/// <param name="Solves">CP-SAT solves made (one per candidate examined).</param>
+/// <param name="Solves">The search's units of work: designs the engine judged, whole or partial (branch and
+/// bound), or CP-SAT solves (selection model).</param>
 /// <param name="Elapsed">Wall time taken.</param>
 /// <param name="Notes">Anything that qualifies the answer (yield not checked, time limit reached…).</param>
 public sealed record SearchOutcome(

@@ -52,6 +52,8 @@ internal sealed class SelectionEnumerator
     private double errorAtFrequencyDepth = double.NaN;
     private SearchCutoff? limit;
     private int exhausted;
+    private readonly List<(int Slot, int Option)> extraTaken = [];
+    private int[] trialBuffer = [];
     private bool untilCutoff, collecting;
     private long collectAbove;
     private readonly List<Generator> generators = [];
@@ -100,49 +102,24 @@ internal sealed class SelectionEnumerator
 
         setup = Scaled(problem.Costs.LineItemSetupCost);
         fixedObjective = problem.FixedDraws.Sum(DrawObjective);
-        objective = slots.Select(s => s.Options.Select(o => o.Draws.Sum(DrawObjective)).ToArray()).ToArray();
-        linesOf = slots.Select(s => s.Options.Select(o => o.Draws.Select(d => d.Line).Distinct().ToArray()).ToArray()).ToArray();
-        drawsOf = slots.Select(s => s.Options.Select(o => o.Draws.ToArray()).ToArray()).ToArray();
-        byCost = objective.Select(costs => Enumerable.Range(0, costs.Length).OrderBy(o => costs[o]).ThenBy(o => o).ToArray()).ToArray();
-        minObjective = objective.Select(costs => costs.Length == 0 ? 0 : costs.Min()).ToArray();
+        // Slots of one kind share their option list (SearchContext.SlotOptionsFor), and so their tables:
+        // made once per search, shared by every slot and variant that has the list.
+        var tables = slots.Select(slot => variant.Context.EnumeratorTables.GetOrAdd(slot.Options,
+            options => new SlotTable(options, DrawObjective, problem.Lines.Count))).ToArray();
+        objective = tables.Select(t => t.Objective).ToArray();
+        linesOf = tables.Select(t => t.LinesOf).ToArray();
+        drawsOf = tables.Select(t => t.DrawsOf).ToArray();
+        byCost = tables.Select(t => t.ByCost).ToArray();
+        minObjective = tables.Select(t => t.MinObjective).ToArray();
         capacity = problem.Lines.Select(l => (long)l.Available).ToArray();
-        logs = slots.Select(s => s.Options.Select(o => o.LogValue).ToArray()).ToArray();
-
-        var lineKind = new int[problem.Lines.Count];
-        Array.Fill(lineKind, -1);
+        logs = tables.Select(t => t.Logs).ToArray();
+        singleOption = tables.Select(t => t.SingleOption).ToArray();
+        pairOptions = tables.Select(t => t.PairOptions).ToArray();
         slotKind = new int[slots.Count];
         for (var s = 0; s < slots.Count; s++)
-        {
             slotKind[s] = s < roleCount ? (int)Roles.KindOf(variant.RoleNames[s]) : (int)RoleKind.Capacitor;
-            foreach (var lines in linesOf[s])
-                foreach (var line in lines)
-                    lineKind[line] = slotKind[s];
-        }
-        // Every option by the lines it draws: one line (a part, or a part twice in a combination) or two.
-        singleOption = new int[slots.Count][][];
-        pairOptions = new Dictionary<(int, int), int[]>[slots.Count];
-        for (var s = 0; s < slots.Count; s++)
-        {
-            var single = new List<int>?[problem.Lines.Count];
-            var pairs = new Dictionary<(int, int), List<int>>();
-            foreach (var o in byCost[s])
-            {
-                var lines = linesOf[s][o];
-                if (lines.Length == 1)
-                    (single[lines[0]] ??= []).Add(o);
-                else if (lines.Length == 2)
-                {
-                    var key = (Math.Min(lines[0], lines[1]), Math.Max(lines[0], lines[1]));
-                    if (!pairs.TryGetValue(key, out var list))
-                        pairs[key] = list = [];
-                    list.Add(o);
-                }
-            }
-            singleOption[s] = single.Select(l => l?.ToArray() ?? []).ToArray();
-            pairOptions[s] = pairs.ToDictionary(kv => kv.Key, kv => kv.Value.ToArray());
-        }
 
-        slotRange = logs.Select(values => Range(values.Where(double.IsFinite))).ToArray();
+        slotRange = tables.Select(t => t.Range).ToArray();
         bucketRange = problem.Buckets.Select(b => (b.Low.Where(double.IsFinite).DefaultIfEmpty(0).Min(), b.High.Where(double.IsFinite).DefaultIfEmpty(0).Max())).ToArray();
         groupRange = problem.Groups.Select(g => Range(g.LogValues.Where(v => !double.IsNaN(v)))).ToArray();
         groupIndex = problem.Groups.Select(g =>
@@ -176,11 +153,11 @@ internal sealed class SelectionEnumerator
             : -1;
 
         buffers = order.Select(s => new int[slots[s].Options.Count]).ToArray();
-        byLog = logs.Select(values => Enumerable.Range(0, values.Length).OrderBy(o => values[o]).ThenBy(o => o).ToArray()).ToArray();
-        sortedLogs = byLog.Select((sorted, s) => sorted.Select(o => logs[s][o]).ToArray()).ToArray();
+        byLog = tables.Select(t => t.ByLog).ToArray();
+        sortedLogs = tables.Select(t => t.SortedLogs).ToArray();
         marks = slots.Select(s => new int[s.Options.Count]).ToArray();
         frequencyBound = problem.Bounds.Select((b, i) => (b, i)).FirstOrDefault(x => x.b.Figure == FigureNames.Frequency, (null!, -1)).Item2;
-        values = slots.Select(s => s.Options.Select(o => o.Tag is StockChoice c ? c.Value : double.NaN).ToArray()).ToArray();
+        values = tables.Select(t => t.Values).ToArray();
         frequencyTarget = variant.Context.Requirement.Frequency.Target;
         frequencyTolerance = variant.Context.Requirement.Frequency.Tolerance;
         (dutyMin, dutyMax) = (variant.Context.Requirement.Duty.Min, variant.Context.Requirement.Duty.Max);
@@ -202,6 +179,7 @@ internal sealed class SelectionEnumerator
         for (var d = order.Length - 1; d >= 0; d--)
             cheapestFrom[d] = cheapestFrom[d + 1] + minObjective[order[d]];
         choice = new int[slots.Count];
+        trialBuffer = new int[slots.Count];
         assigned = new bool[slots.Count];
         use = new long[problem.Lines.Count];
         lineRefs = new int[problem.Lines.Count];
@@ -545,7 +523,7 @@ internal sealed class SelectionEnumerator
 
     private double ForecastError()
     {
-        var frequency = forecast!.Frequency(slot => values[slot][choice[slot]]);
+        var frequency = forecast!.Frequency(values, choice);
         return Math.Abs(frequency - frequencyTarget) / frequencyTarget;
     }
 
@@ -681,7 +659,8 @@ internal sealed class SelectionEnumerator
     {
         if (!checkAfter[depth])
             return depth + 1;
-        var trial = (int[])choice.Clone();
+        var trial = trialBuffer;
+        Array.Copy(choice, trial, choice.Length);
         for (var s = 0; s < roleCount; s++)
             if (!assigned[s])
                 trial[s] = byCost[s].Length > 0 ? byCost[s][0] : 0;
@@ -719,7 +698,8 @@ internal sealed class SelectionEnumerator
             return depth - 1;
 
         // The extra slots (decoupling) do not make a different circuit: the cheapest that fits is taken.
-        var extra = new List<(int Slot, int Option)>();
+        var extra = extraTaken;
+        extra.Clear();
         for (var s = roleCount; s < problem.Slots.Count; s++)
         {
             var best = -1;
@@ -1246,5 +1226,56 @@ internal sealed class SelectionEnumerator
             }
             return x.CompareTo(y);
         }
+    }
+
+    /// <summary>What the search needs of one option list, worked out once per search (see the constructor).</summary>
+    internal sealed class SlotTable
+    {
+        public SlotTable(IReadOnlyList<SlotOption> options, Func<PartDraw, long> drawObjective, int lineCount)
+        {
+            Objective = options.Select(o => o.Draws.Sum(drawObjective)).ToArray();
+            LinesOf = options.Select(o => o.Draws.Select(d => d.Line).Distinct().ToArray()).ToArray();
+            DrawsOf = options.Select(o => o.Draws.ToArray()).ToArray();
+            var costs = Objective;
+            ByCost = Enumerable.Range(0, costs.Length).OrderBy(o => costs[o]).ThenBy(o => o).ToArray();
+            MinObjective = costs.Length == 0 ? 0 : costs.Min();
+            Logs = options.Select(o => o.LogValue).ToArray();
+            Values = options.Select(o => o.Tag is StockChoice c ? c.Value : double.NaN).ToArray();
+            var logs = Logs;
+            ByLog = Enumerable.Range(0, logs.Length).OrderBy(o => logs[o]).ThenBy(o => o).ToArray();
+            SortedLogs = ByLog.Select(o => logs[o]).ToArray();
+            Range = SelectionEnumerator.Range(logs.Where(double.IsFinite));
+            // Every option by the lines it draws: one line (a part, or a part twice in a combination) or two.
+            var single = new List<int>?[lineCount];
+            var pairs = new Dictionary<(int, int), List<int>>();
+            foreach (var o in ByCost)
+            {
+                var lines = LinesOf[o];
+                if (lines.Length == 1)
+                    (single[lines[0]] ??= []).Add(o);
+                else if (lines.Length == 2)
+                {
+                    var key = (Math.Min(lines[0], lines[1]), Math.Max(lines[0], lines[1]));
+                    if (!pairs.TryGetValue(key, out var list))
+                        pairs[key] = list = [];
+                    list.Add(o);
+                }
+            }
+            SingleOption = single.Select(l => l?.ToArray() ?? []).ToArray();
+            PairOptions = pairs.ToDictionary(kv => kv.Key, kv => kv.Value.ToArray());
+        }
+
+        public long[] Objective { get; }
+        public int[][] LinesOf { get; }
+        public PartDraw[][] DrawsOf { get; }
+        public int[] ByCost { get; }
+        public long MinObjective { get; }
+        public double[] Logs { get; }
+        public double[] Values { get; }
+        public int[] ByLog { get; }
+        public double[] SortedLogs { get; }
+        public (double Min, double Max) Range { get; }
+        public int[][] SingleOption { get; }
+        public Dictionary<(int, int), int[]> PairOptions { get; }
     }
 }
