@@ -93,7 +93,7 @@ public static class DesignSearch
             }
             if (list.Cutoff(variant.Topology) is { } limit && variant.LowerBound * variant.CostScale > limit.Cost)
                 return; // proved: nothing this variant builds can enter the list
-            var enumerator = new SelectionEnumerator(variant);
+            var enumerator = new SelectionEnumerator(variant) { QuickStart = !list.HasDesign(variant.Topology) };
             var run = enumerator.Run(
                 choice => Verify(variant, choice, yieldCheck, tracker, forModel: false),
                 choice => JudgeOnly(variant, choice, tracker),
@@ -317,6 +317,13 @@ public static class DesignSearch
                 else if (rank.CompareTo(kept.Peek()) < 0)
                     kept.EnqueueDequeue(rank, rank);
             }
+        }
+
+        /// <summary>True once a design of the topology has been listed.</summary>
+        public bool HasDesign(TopologyKind topology)
+        {
+            lock (gate)
+                return best.ContainsKey(topology);
         }
 
         /// <summary>Designs ranked after both the K-th so far and this topology's best cannot enter the list.</summary>

@@ -242,7 +242,7 @@ internal sealed class SelectionEnumerator
                 // completed in rank order until the next one ranks after the cutoff.
                 // A quick design by one-role repairs (judged like any other) usually gives the list its
                 // cutoff at once, so phase 1 has nothing left to do.
-                if (limit is null && StartingDesign.Find(variant, Min(deadline, DateTime.UtcNow + QuickStartBudget)) is { } start)
+                if (QuickStart && limit is null && StartingDesign.Find(variant, Min(deadline, DateTime.UtcNow + QuickStartBudget)) is { } start)
                     Whole(start);
                 untilCutoff = limit is null;
                 if (untilCutoff)
@@ -554,6 +554,12 @@ internal sealed class SelectionEnumerator
     }
 
     private static DateTime Min(DateTime a, DateTime b) => a < b ? a : b;
+
+    /// <summary>
+    /// Try a quick starting design before phase 1 (set by the search while the variant's topology has no
+    /// design yet: once it has one, its other variants soon start with a cutoff).
+    /// </summary>
+    public bool QuickStart { get; init; } = true;
 
     /// <summary>Longest the quick starting design may take: past it, phase 1 finds the first design anyway.</summary>
     public static readonly TimeSpan QuickStartBudget = TimeSpan.FromMilliseconds(50);
