@@ -252,12 +252,7 @@ internal sealed class SelectionEnumerator
                     ByGenerator();
             }
         }
-        var ranked = found
-            .OrderBy(a => a.Objective)
-            .ThenBy(a => a.Verdict.FrequencyError)
-            .ThenByDescending(a => a.Verdict.Margin)
-            .ThenBy(a => string.Join(',', a.Choice))
-            .ToList();
+        var ranked = AcceptedChoice.InRankOrder(found);
         return new SelectionRun(ranked, !stopped, (int)Math.Min(Judged, int.MaxValue), []);
     }
 
@@ -438,18 +433,7 @@ internal sealed class SelectionEnumerator
         if (frequencyBound < 0)
             return null;
         var bound = problem.Bounds[frequencyBound];
-        var coefficient = 0;
-        double restMin = 0, restMax = 0;
-        foreach (var term in bound.Terms)
-        {
-            if (term.Kind == TermKind.Slot && term.Index == slot)
-            {
-                coefficient += term.Coefficient;
-                continue;
-            }
-            var (min, max) = TermRange(term);
-            (restMin, restMax) = (restMin + min, restMax + max);
-        }
+        var (coefficient, restMin, restMax) = Split(bound, slot);
         if (coefficient == 0 || !double.IsFinite(bound.Lower) || !double.IsFinite(bound.Upper) || double.IsNaN(restMin))
             return null;
         return ((bound.Lower + bound.Upper) / 2 - (restMin + restMax) / 2) / coefficient;
@@ -949,19 +933,7 @@ internal sealed class SelectionEnumerator
         foreach (var b in boundsOf[slot])
         {
             var bound = problem.Bounds[b];
-            var coefficient = 0;
-            double restMin = 0, restMax = 0;
-            foreach (var term in bound.Terms)
-            {
-                if (term.Kind == TermKind.Slot && term.Index == slot)
-                {
-                    coefficient += term.Coefficient;
-                    continue;
-                }
-                var (min, max) = TermRange(term);
-                restMin += min;
-                restMax += max;
-            }
+            var (coefficient, restMin, restMax) = Split(bound, slot);
             if (coefficient == 0 || double.IsNaN(restMin) || double.IsNaN(restMax))
                 continue;
             double from = (bound.Lower - restMax) / coefficient, to = (bound.Upper - restMin) / coefficient;
@@ -971,6 +943,27 @@ internal sealed class SelectionEnumerator
             high = Math.Min(high, to + Slack);
         }
         return (low, high);
+    }
+
+    /// <summary>
+    /// A bound split around one slot: the slot's total coefficient in it, and the least and greatest sum the
+    /// other terms can still reach.
+    /// </summary>
+    private (int Coefficient, double RestMin, double RestMax) Split(LogBound bound, int slot)
+    {
+        var coefficient = 0;
+        double restMin = 0, restMax = 0;
+        foreach (var term in bound.Terms)
+        {
+            if (term.Kind == TermKind.Slot && term.Index == slot)
+            {
+                coefficient += term.Coefficient;
+                continue;
+            }
+            var (min, max) = TermRange(term);
+            (restMin, restMax) = (restMin + min, restMax + max);
+        }
+        return (coefficient, restMin, restMax);
     }
 
     /// <summary>

@@ -145,12 +145,7 @@ internal sealed class SelectionSolver
                 break; // time ran out inside the solve: what we have is not proved
         }
 
-        var ranked = accepted
-            .OrderBy(a => a.Objective)
-            .ThenBy(a => a.Verdict.FrequencyError)
-            .ThenByDescending(a => a.Verdict.Margin)
-            .ThenBy(a => string.Join(',', a.Choice))
-            .ToList();
+        var ranked = AcceptedChoice.InRankOrder(accepted);
         return new SelectionRun(ranked, complete, solves, rejections);
     }
 

@@ -50,7 +50,17 @@ internal sealed record SelectionVerdict(
 }
 
 /// <summary>An assignment the engine accepted, with its exact integer objective.</summary>
-internal sealed record AcceptedChoice(int[] Choice, long Objective, SelectionVerdict Verdict);
+internal sealed record AcceptedChoice(int[] Choice, long Objective, SelectionVerdict Verdict)
+{
+    /// <summary>Accepted designs of one variant in rank order: cost, frequency error, margin (larger first), choice.</summary>
+    public static List<AcceptedChoice> InRankOrder(IEnumerable<AcceptedChoice> accepted) =>
+        accepted
+            .OrderBy(a => a.Objective)
+            .ThenBy(a => a.Verdict.FrequencyError)
+            .ThenByDescending(a => a.Verdict.Margin)
+            .ThenBy(a => string.Join(',', a.Choice))
+            .ToList();
+}
 
 /// <summary>What a run of the lazy loop produced.</summary>
 /// <param name="Accepted">Every assignment accepted in the run, in rank order (objective, then tie-breaks,
