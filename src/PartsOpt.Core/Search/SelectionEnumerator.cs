@@ -71,7 +71,7 @@ internal sealed partial class SelectionEnumerator
     private readonly FrequencyForecast? forecast;
     private bool forecastTrusted = true;
 
-    /// <summary>False once a forecast disagreed with the engine in the last run (tests read it).</summary>
+    /// <summary>False once a forecast disagreed with the engine in the last run.</summary>
     public bool ForecastTrusted => forecastTrusted;
     private readonly int[][] buffers;
     private readonly int[][] byLog;
@@ -193,8 +193,6 @@ internal sealed partial class SelectionEnumerator
     /// <summary>Partial designs judged in the last run (included in <see cref="Judged"/>).</summary>
     public long PartialJudged { get; private set; }
 
-    /// <summary>Nodes of the tree visited in the last run.</summary>
-    public long Nodes => nodes;
 
     /// <summary>
     /// Enumerates every design of the variant whose cost is within <paramref name="cutoffOf"/> (read again
