@@ -172,21 +172,38 @@ internal static class FrequencyRelaxation
     private static (RatioBuckets Buckets, RatioBuckets EdgeBuckets, double UpperEdgeMultiplier)? SharedDividerBuckets(
         SearchVariant variant, IReadOnlyList<SelectionSlot> slots, int r1, int r2, IReadOnlyList<double> references, Levels levels)
     {
-        // Variants are made on first use, by whichever thread searches them.
-        return variant.Context.DividerBuckets.GetOrAdd(variant.AmplifierIndex,
-            _ => new Lazy<(RatioBuckets, RatioBuckets, double)?>(() => DividerBuckets(slots, r1, r2, references, levels, levels.Amp.InputOffsetV))).Value;
+        // Variants are made on first use, by whichever thread searches them; the ratios are shared by all.
+        var context = variant.Context;
+        return context.DividerBuckets.GetOrAdd(variant.AmplifierIndex,
+            _ => new Lazy<(RatioBuckets, RatioBuckets, double)?>(() => DividerBuckets(
+                context.DividerRatios.GetOrAdd((slots[r1].Options, slots[r2].Options),
+                    lists => new Lazy<DividerRatios>(() => Search.DividerRatios.Of(lists.Item1, lists.Item2))).Value,
+                r1, r2, references, levels, levels.Amp.InputOffsetV))).Value;
     }
+
+    /// <summary><see cref="DividerBuckets(DividerRatios, int, int, IReadOnlyList{double}, Levels, double)"/> of two slots' options.</summary>
+    internal static (RatioBuckets Buckets, RatioBuckets EdgeBuckets, double UpperEdgeMultiplier)? DividerBuckets(
+        IReadOnlyList<SelectionSlot> slots, int r1, int r2, IReadOnlyList<double> references, Levels levels, double offsetV) =>
+        DividerBuckets(Search.DividerRatios.Of(slots[r1].Options, slots[r2].Options), r1, r2, references, levels, offsetV);
 
     /// <summary>
     /// The relaxation oscillator's period factor k(β, reference) bucketed over the divider ratio
-    /// x = ln(r2) − ln(r1) (β = 1/(1 + e^(−x))). k rises with β for any reference; for a fixed β it is
-    /// symmetric in t = ln((ref − L−)/(L+ − ref)) and grows with |t|, so over the stocked references a pair's
-    /// least k is at the reference nearest t = 0 and its greatest at one of the two extremes (with a dual
-    /// supply there is one reference and the two agree). Pairs that cannot switch even about that most
-    /// favourable reference are left out. Null when no stocked pair lets the oscillator switch.
+    /// x = ln(r2) − ln(r1) (β = 1/(1 + e^(−x))), in at most <see cref="MaxBuckets"/> buckets of equal pair
+    /// count (one ratio never split). k rises with β for any reference; for a fixed β it is symmetric in
+    /// t = ln((ref − L−)/(L+ − ref)) and grows with |t|, so over the stocked references a pair's least k is
+    /// at the reference nearest t = 0 and its greatest at one of the two extremes (with a dual supply there
+    /// is one reference and the two agree). Pairs that cannot switch even about that most favourable
+    /// reference are left out. Null when no stocked pair lets the oscillator switch.
     /// </summary>
+    /// <remarks>
+    /// Both factors are monotone in β over the ratios a bucket holds, so each bucket's least and greatest
+    /// are read at its end ratios, not computed for every pair: k rises with β (each of its two logarithms
+    /// does); the edge factor (<see cref="EdgeCompletes"/>, <see cref="EdgeCompletesSharp"/>) falls with β on
+    /// each side of β = 1/2, where the sharp form takes over (see there), so a bucket across 1/2 is read at
+    /// the last ratio below and the first at or above it too.
+    /// </remarks>
     internal static (RatioBuckets Buckets, RatioBuckets EdgeBuckets, double UpperEdgeMultiplier)? DividerBuckets(
-        IReadOnlyList<SelectionSlot> slots, int r1, int r2, IReadOnlyList<double> references, Levels levels, double offsetV)
+        DividerRatios ratios, int r1, int r2, IReadOnlyList<double> references, Levels levels, double offsetV)
     {
         // References where both levels lie on either side: the only ones an oscillator can switch about.
         var usable = references.Where(r => levels.HighRel(r) > 0 && levels.LowRel(r) < 0).ToArray();
@@ -194,53 +211,70 @@ internal static class FrequencyRelaxation
             return null;
         var centre = usable.MinBy(r => Math.Abs(Math.Log(-levels.LowRel(r) / levels.HighRel(r))));
         double Factor(double beta, double reference) => Math.Log(levels.PeriodFactor(beta, reference, 0));
-        var members = new List<(double X, double Low, double High)>();
-        var edgeMembers = new List<(double X, double Low, double High)>();
-        var betaMin = 1.0;
-        // Stocked series repeat their ratios (E96 × E96 has about 1,000 distinct ones in 230,000 pairs):
-        // each distinct ratio is worked out once.
-        var seen = new Dictionary<double, ((double X, double Low, double High) Member, double EdgeFactor, double Beta)?>();
-        foreach (var a in slots[r1].Options)
-            foreach (var b in slots[r2].Options)
-            {
-                var x = b.LogValue - a.LogValue;
-                if (seen.TryGetValue(x, out var known))
-                {
-                    if (known is { } k)
-                    {
-                        members.Add(k.Member);
-                        edgeMembers.Add((x, k.EdgeFactor, k.EdgeFactor));
-                    }
-                    continue;
-                }
-                seen[x] = null;
-                var beta = 1 / (1 + Math.Exp(-x));
-                // The offset condition is most lenient about the centre reference, where min(L+, −L−) is largest.
-                // Hysteresis β·(L+ − L−) below HysteresisOffsets input offsets fails the engine's check too.
-                if (!double.IsFinite(levels.PeriodFactor(beta, centre, offsetV))
-                    || beta * (levels.HighRel(centre) - levels.LowRel(centre)) < CircuitChecks.HysteresisOffsets * offsetV * (1 - 1e-9))
-                    continue;
-                var member = (x, Factor(beta, centre), Math.Max(Factor(beta, usable[0]), Factor(beta, usable[^1])));
-                members.Add(member);
-                // max(L+, −L−) is least about the centre reference, where the loose bound is weakest; with one
-                // reference (a dual supply) the sharp bound holds for β ≥ 1/2.
-                var edgeFactor = Math.Log(usable.Length == 1
-                    ? EdgeCompletesSharp(beta, levels.HighRel(centre), levels.LowRel(centre))
-                    : EdgeCompletes(beta, levels.HighRel(centre), levels.LowRel(centre)));
-                edgeMembers.Add((x, edgeFactor, edgeFactor));
-                seen[x] = (member, edgeFactor, beta);
-                betaMin = Math.Min(betaMin, beta);
-            }
-        if (members.Count == 0)
+        double EdgeFactor(double beta) => Math.Log(usable.Length == 1
+            // max(L+, −L−) is least about the centre reference, where the loose bound is weakest; with one
+            // reference (a dual supply) the sharp bound holds for β ≥ 1/2.
+            ? EdgeCompletesSharp(beta, levels.HighRel(centre), levels.LowRel(centre))
+            : EdgeCompletes(beta, levels.HighRel(centre), levels.LowRel(centre)));
+        static double Beta(double x) => 1 / (1 + Math.Exp(-x));
+
+        // The ratios whose pairs can switch: the offset condition is most lenient about the centre
+        // reference, where min(L+, −L−) is largest; hysteresis β·(L+ − L−) below HysteresisOffsets input
+        // offsets fails the engine's check too.
+        var kept = new List<int>();
+        var pairs = 0L;
+        for (var i = 0; i < ratios.Ratios.Length; i++)
+        {
+            var beta = Beta(ratios.Ratios[i]);
+            if (!double.IsFinite(levels.PeriodFactor(beta, centre, offsetV))
+                || beta * (levels.HighRel(centre) - levels.LowRel(centre)) < CircuitChecks.HysteresisOffsets * offsetV * (1 - 1e-9))
+                continue;
+            kept.Add(i);
+            pairs += ratios.Pairs[i];
+        }
+        if (kept.Count == 0)
             return null;
+
+        var edges = new List<(double Low, double High)>();
+        var low = new List<double>();
+        var high = new List<double>();
+        var edgeLow = new List<double>();
+        var edgeHigh = new List<double>();
+        var per = (pairs + MaxBuckets - 1) / MaxBuckets;
+        for (var first = 0; first < kept.Count;)
+        {
+            // As many pairs as `per` from here, then to the end of the ratio the last of them has.
+            var last = first;
+            for (var taken = (long)ratios.Pairs[kept[first]]; taken < per && last + 1 < kept.Count;)
+                taken += ratios.Pairs[kept[++last]];
+            double xLow = ratios.Ratios[kept[first]], xHigh = ratios.Ratios[kept[last]];
+            double betaLow = Beta(xLow), betaHigh = Beta(xHigh);
+            edges.Add((xLow, xHigh));
+            low.Add(Factor(betaLow, centre));
+            high.Add(Math.Max(Factor(betaHigh, usable[0]), Factor(betaHigh, usable[^1])));
+            var ends = new List<double> { betaLow, betaHigh };
+            if (betaLow < 0.5 && betaHigh >= 0.5)
+            {
+                var split = first;
+                while (Beta(ratios.Ratios[kept[split + 1]]) < 0.5)
+                    split++;
+                ends.Add(Beta(ratios.Ratios[kept[split]]));
+                ends.Add(Beta(ratios.Ratios[kept[split + 1]]));
+            }
+            var edgeFactors = ends.Select(EdgeFactor).ToList();
+            edgeLow.Add(edgeFactors.Min());
+            edgeHigh.Add(edgeFactors.Max());
+            first = last + 1;
+        }
         // The edge multiplier b falls as β rises and, for a fixed β, is greatest at an extreme reference.
+        var betaMin = Beta(ratios.Ratios[kept[0]]);
         var upper = new[] { usable[0], usable[^1], centre }
             .Select(r => RelaxationTiming.EdgeMultipliers(betaMin, levels.HighRel(r), levels.LowRel(r)).Upper)
             .Where(double.IsFinite)
             .Append(1.0)
             .Max();
-        return (Bucketise([new LogTerm(r1, -1), new LogTerm(r2, 1)], members),
-            Bucketise([new LogTerm(r1, -1), new LogTerm(r2, 1)], edgeMembers), upper);
+        IReadOnlyList<LogTerm> ratio = [new LogTerm(r1, -1), new LogTerm(r2, 1)];
+        return (new RatioBuckets(ratio, edges, low, high), new RatioBuckets(ratio, edges, edgeLow, edgeHigh), upper);
     }
 
     /// <summary>

@@ -43,6 +43,20 @@ internal sealed class SearchContext
     /// </summary>
     internal System.Collections.Concurrent.ConcurrentDictionary<int, Lazy<(RatioBuckets Buckets, RatioBuckets EdgeBuckets, double UpperEdgeMultiplier)?>> DividerBuckets { get; } = [];
 
+    /// <summary>The divider ratios two option lists form (<see cref="Search.DividerRatios"/>), shared by every amplifier's buckets.</summary>
+    internal System.Collections.Concurrent.ConcurrentDictionary<(IReadOnlyList<SlotOption>, IReadOnlyList<SlotOption>), Lazy<DividerRatios>> DividerRatios { get; } =
+        new(new PairOfReferences());
+
+    private sealed class PairOfReferences : IEqualityComparer<(IReadOnlyList<SlotOption>, IReadOnlyList<SlotOption>)>
+    {
+        public bool Equals((IReadOnlyList<SlotOption>, IReadOnlyList<SlotOption>) x, (IReadOnlyList<SlotOption>, IReadOnlyList<SlotOption>) y) =>
+            ReferenceEquals(x.Item1, y.Item1) && ReferenceEquals(x.Item2, y.Item2);
+
+        public int GetHashCode((IReadOnlyList<SlotOption>, IReadOnlyList<SlotOption>) pair) =>
+            HashCode.Combine(System.Runtime.CompilerServices.RuntimeHelpers.GetHashCode(pair.Item1),
+                System.Runtime.CompilerServices.RuntimeHelpers.GetHashCode(pair.Item2));
+    }
+
     /// <summary>The branch and bound's tables of each option list (costs, lines, logs, orders), shared by every variant.</summary>
     internal System.Collections.Concurrent.ConcurrentDictionary<IReadOnlyList<SlotOption>, SelectionEnumerator.SlotTable> EnumeratorTables { get; } =
         new(ReferenceEqualityComparer.Instance);

@@ -63,6 +63,65 @@ public class RelaxationSoundnessTests
         Assert.True(checkedPairs > 10_000, $"only {checkedPairs} pairs checked");
     }
 
+    /// <summary>
+    /// The divider buckets read each factor at a bucket's end ratios only (both are monotone in β on each
+    /// side of β = 1/2). Here every stocked pair is worked out on its own, by the definitions: whether the
+    /// oscillator can switch with it, its period factor about the most and least favourable references
+    /// (RelaxationTiming's closed form, REFERENCE.md) and its edge-completion factor. Each bucket must hold
+    /// exactly the least and greatest of its pairs, and the buckets the same number of pairs give or take
+    /// one ratio's worth.
+    /// </summary>
+    [Theory]
+    [InlineData(false)]
+    [InlineData(true)]
+    public void Divider_buckets_hold_the_least_and_greatest_factor_of_their_pairs(bool singleSupply)
+    {
+        var values = E24Between(1, 6).ToArray(); // 10 Ω … 910 kΩ: 120 values, 14,400 pairs
+        var slot = new SelectionSlot("r", values.Select(v => new SlotOption([], Math.Log(v))).ToList());
+        var supply = singleSupply ? Supply.SingleRail(12) : Supply.Symmetric(12);
+        var amp = TestStock.QuadJfet;
+        var levels = new FrequencyRelaxation.Levels(supply, amp);
+        var references = singleSupply
+            ? values.Take(40).SelectMany(top => values.Take(40).Select(bottom => 12 * bottom / (top + bottom))).Distinct().Order().ToArray()
+            : [0.0];
+
+        var (buckets, edgeBuckets, _) = FrequencyRelaxation.DividerBuckets([slot, slot], 0, 1, references, levels, amp.InputOffsetV)!.Value;
+
+        var usable = references.Where(r => levels.HighRel(r) > 0 && levels.LowRel(r) < 0).ToArray();
+        var centre = usable.MinBy(r => Math.Abs(Math.Log(-levels.LowRel(r) / levels.HighRel(r))));
+        var members = Enumerable.Range(0, buckets.Edges.Count).Select(_ => new List<(double Low, double High, double Edge)>()).ToArray();
+        foreach (var r1 in values)
+            foreach (var r2 in values)
+            {
+                var x = Math.Log(r2) - Math.Log(r1);
+                var beta = 1 / (1 + Math.Exp(-x));
+                if (!double.IsFinite(levels.PeriodFactor(beta, centre, amp.InputOffsetV))
+                    || beta * (levels.HighRel(centre) - levels.LowRel(centre)) < CircuitChecks.HysteresisOffsets * amp.InputOffsetV * (1 - 1e-9))
+                    continue; // cannot switch: in no bucket
+                var bucket = Enumerable.Range(0, buckets.Edges.Count).Single(j => buckets.Edges[j].Low <= x && x <= buckets.Edges[j].High);
+                var edge = usable.Length == 1
+                    ? FrequencyRelaxation.EdgeCompletesSharp(beta, levels.HighRel(centre), levels.LowRel(centre))
+                    : FrequencyRelaxation.EdgeCompletes(beta, levels.HighRel(centre), levels.LowRel(centre));
+                members[bucket].Add((Math.Log(levels.PeriodFactor(beta, centre, 0)),
+                    Math.Max(Math.Log(levels.PeriodFactor(beta, usable[0], 0)), Math.Log(levels.PeriodFactor(beta, usable[^1], 0))),
+                    Math.Log(edge)));
+            }
+
+        Assert.Equal(buckets.Edges, edgeBuckets.Edges);
+        for (var j = 0; j < members.Length; j++)
+        {
+            Assert.NotEmpty(members[j]);
+            Assert.Equal(members[j].Min(m => m.Low), buckets.Low[j], 1e-12);
+            Assert.Equal(members[j].Max(m => m.High), buckets.High[j], 1e-12);
+            // The sharp edge factor is found by bisection to 1e-12 of itself: its ends agree to that.
+            Assert.Equal(members[j].Min(m => m.Edge), edgeBuckets.Low[j], 1e-9);
+            Assert.Equal(members[j].Max(m => m.Edge), edgeBuckets.High[j], 1e-9);
+        }
+        var counts = members.Select(m => m.Count).ToArray();
+        var per = (counts.Sum() + FrequencyRelaxation.MaxBuckets - 1) / FrequencyRelaxation.MaxBuckets;
+        Assert.All(counts[..^1], c => Assert.InRange(c, per, per + values.Length));
+    }
+
     [Fact]
     public void Buckets_are_exact_when_there_are_fewer_ratios_than_buckets()
     {
