@@ -201,6 +201,8 @@ internal sealed class SearchVariant
     public IReadOnlyList<int> ScopeOfCheck(string check, DesignJudgement judgement) => check switch
     {
         "input common-mode range (comparator)" when RampOutsideComparatorRange(judgement) => SlotsOf(RampRoles()),
+        // The ramp well inside: the pot's thresholds are outside, and they divide the supply rails alone.
+        "input common-mode range (comparator)" when ThresholdsLeaveComparatorRange(judgement) => SlotsOf([Roles.CmpRa, Roles.CmpPot, Roles.CmpRb]),
         "oscillator can switch" or "output edges short against the period" => SlotsOf(FrequencyRoles()),
         "integrator slope below slew rate" or "triangle inside integrator swing"
             or "input common-mode range (oscillator)" or "input common-mode range (schmitt)"
@@ -334,17 +336,54 @@ internal sealed class SearchVariant
         return escape.Distinct().ToList();
     }
 
+    /// <summary>
+    /// True when the judgement failed the comparator's input range on the pot's thresholds alone (the ramp
+    /// well inside): every divider whose thresholds span as much or more fails it too, whatever the ramp.
+    /// </summary>
+    public bool ThresholdsLeaveComparatorRange(DesignJudgement judgement) =>
+        Prototype.DutyControl is not ControlVoltageDuty
+        && judgement.FailedChecks.Contains("input common-mode range (comparator)")
+        && RampInsideComparatorRange(judgement);
+
     /// <summary>True when the ramp alone leaves the comparator's input range (so any threshold fails too).</summary>
-    private bool RampOutsideComparatorRange(DesignJudgement judgement)
+    private bool RampOutsideComparatorRange(DesignJudgement judgement) =>
+        RampMarginInComparatorRange(judgement) < -1e-9;
+
+    /// <summary>
+    /// True when the ramp lies inside the comparator's input range with room to spare, so that a failed range
+    /// check is the thresholds' alone (the 1 nV keeps rounding of the ramp's extremes on the safe side).
+    /// </summary>
+    private bool RampInsideComparatorRange(DesignJudgement judgement) =>
+        RampMarginInComparatorRange(judgement) > 1e-9;
+
+    /// <summary>How far inside the comparator's input range the ramp lies, V (negative: outside; NaN: no ramp).</summary>
+    private double RampMarginInComparatorRange(DesignJudgement judgement)
     {
         var evaluation = judgement.Evaluation;
         if (evaluation.Figure(FigureNames.TriangleCentre) is not { } centre
             || evaluation.Figure(FigureNames.TrianglePeakToPeak) is not { } peakToPeak)
-            return false;
+            return double.NaN;
+        var (floor, ceiling) = ComparatorInputRange();
+        return Math.Min(centre - peakToPeak / 2 - floor, ceiling - (centre + peakToPeak / 2));
+    }
+
+    /// <summary>
+    /// Which of a pot's two thresholds, given as fractions of the supply span from the negative rail, lie
+    /// outside the comparator's input range (by more than 1 nV).
+    /// </summary>
+    public (bool TopAbove, bool BottomBelow) ThresholdsOutsideComparatorRange(double top, double bottom)
+    {
+        var supply = Prototype.Supply;
+        var (floor, ceiling) = ComparatorInputRange();
+        return (supply.NegativeV + supply.SpanV * top > ceiling + 1e-9, supply.NegativeV + supply.SpanV * bottom < floor - 1e-9);
+    }
+
+    /// <summary>The comparator's input range, V: the rails less the part's input headroom (the engine's range check).</summary>
+    private (double Floor, double Ceiling) ComparatorInputRange()
+    {
         var part = Prototype.ComparatorPart;
         var supply = Prototype.Supply;
-        return centre - peakToPeak / 2 < supply.NegativeV + part.InputHeadroomLowV - 1e-9
-            || centre + peakToPeak / 2 > supply.PositiveV - part.InputHeadroomHighV + 1e-9;
+        return (supply.NegativeV + part.InputHeadroomLowV, supply.PositiveV - part.InputHeadroomHighV);
     }
 
     /// <summary>Roles the frequency depends on: the square-wave generator's and the reference divider.</summary>

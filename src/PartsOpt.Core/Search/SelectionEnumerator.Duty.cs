@@ -73,6 +73,29 @@ internal sealed partial class SelectionEnumerator
         return ((rb + pot) / sum, rb / sum);
     }
 
+    /// <summary>
+    /// Learns from a divider whose thresholds left the comparator's input range
+    /// (<see cref="SearchVariant.ThresholdsLeaveComparatorRange"/>): the range check falls as the top threshold
+    /// rises and as the bottom one falls, so every divider whose top is at least a top found above the range,
+    /// or whose bottom is at most a bottom found below it, fails too, whatever the ramp.
+    /// </summary>
+    private void LearnThresholdsOutside()
+    {
+        var (top, bottom) = Thresholds();
+        var (above, below) = variant.ThresholdsOutsideComparatorRange(top, bottom);
+        if (above)
+            topOutsideFrom = Math.Min(topOutsideFrom, top);
+        if (below)
+            bottomOutsideTo = Math.Max(bottomOutsideTo, bottom);
+    }
+
+    /// <summary>True when the filled divider's thresholds reach as far as thresholds learnt to leave the comparator's range.</summary>
+    private bool ThresholdsOutside()
+    {
+        var (top, bottom) = Thresholds();
+        return top >= topOutsideFrom || bottom <= bottomOutsideTo;
+    }
+
     /// <summary>True when the divider reaches further than every divider that failed with the same ramp.</summary>
     private bool ThresholdsReachFurther()
     {

@@ -29,13 +29,16 @@ internal sealed partial class SelectionEnumerator
     private static DateTime Min(DateTime a, DateTime b) => a < b ? a : b;
 
     /// <summary>
-    /// Try a quick starting design before phase 1 (set by the search while the variant's topology has no
-    /// design yet: once it has one, its other variants soon start with a cutoff).
+    /// Try a quick starting design when phase 1's first look finds none (set by the search while the
+    /// variant's topology has no design yet: once it has one, its other variants soon start with a cutoff).
     /// </summary>
     public bool QuickStart { get; init; } = true;
 
     /// <summary>Longest the quick starting design may take: past it, phase 1 finds the first design anyway.</summary>
     public static readonly TimeSpan QuickStartBudget = TimeSpan.FromMilliseconds(50);
+
+    /// <summary>How long phase 1 walks before the quick starting design is tried (most variants find a design sooner).</summary>
+    public static readonly TimeSpan FirstLookBudget = TimeSpan.FromMilliseconds(15);
 
     /// <summary>A square-wave generator found in phase 2: its options in branching order, cheapest completion, forecast error.</summary>
     private readonly record struct Generator(int Offset, long Least, double Error);

@@ -41,6 +41,12 @@ internal sealed partial class SelectionEnumerator
     private readonly Dictionary<long, int>[] groupIndex;
     private readonly int dividerRa, dividerPot, dividerRb, dividerDepth;
 
+    /// <summary>
+    /// Threshold dividers the engine rejected on their own (the thresholds outside the comparator's input
+    /// range, a divider part's rating): they fail whatever the rest of the design, so are not judged again.
+    /// </summary>
+    private readonly HashSet<long> failedDividers = [];
+
     // Search state.
     private readonly int[] choice;
     private readonly bool[] assigned;
@@ -67,6 +73,7 @@ internal sealed partial class SelectionEnumerator
     private readonly bool learnsDuty;
     private readonly int dutyFrame;
     private readonly List<(double Threshold, double Duty)> tops = [], bottoms = [];
+    private double topOutsideFrom = double.PositiveInfinity, bottomOutsideTo = double.NegativeInfinity;
     private readonly IReadOnlyList<int> rampSlots;
     private readonly FrequencyForecast? forecast;
     private bool forecastTrusted = true;
@@ -82,6 +89,7 @@ internal sealed partial class SelectionEnumerator
     private readonly int frequencyDepth;
     private long nodes;
     private DateTime deadline;
+    private DateTime stopAt; // the deadline, or the end of phase 1's first look
     private CancellationToken cancellation;
     private Func<int[], SelectionVerdict> verify = null!;
     private Func<int[], DesignJudgement?> judgePartial = null!;
@@ -210,6 +218,7 @@ internal sealed partial class SelectionEnumerator
         Func<SearchCutoff?> cutoffOf, Action<AcceptedChoice> accepted, DateTime deadlineUtc, CancellationToken token)
     {
         (verify, this.judgePartial, cutoff, deadline, cancellation) = (judge, judgePartial, cutoffOf, deadlineUtc, token);
+        stopAt = deadline;
         stopped = false;
         nodes = 0;
         Judged = 0;
@@ -237,12 +246,22 @@ internal sealed partial class SelectionEnumerator
                 // Phase 1: depth first until the list has a cutoff. Phase 2: every square-wave generator
                 // within it, collected with its cheapest completion and forecast frequency error, then
                 // completed in rank order until the next one ranks after the cutoff.
-                // A quick design by one-role repairs (judged like any other) usually gives the list its
-                // cutoff at once, so phase 1 has nothing left to do.
-                if (QuickStart && limit is null && StartingDesign.Find(variant, Min(deadline, DateTime.UtcNow + QuickStartBudget)) is { } start)
-                    Whole(start);
                 untilCutoff = limit is null;
-                if (untilCutoff)
+                if (untilCutoff && QuickStart)
+                {
+                    // Usually the walk finds a first design at once. Where it does not within a short look,
+                    // a quick design by one-role repairs (judged like any other) mostly does; then the walk
+                    // again, from the start, without a budget.
+                    stopAt = Min(deadline, DateTime.UtcNow + FirstLookBudget);
+                    Descend(0);
+                    stopAt = deadline;
+                    if (stopped && !cancellation.IsCancellationRequested && DateTime.UtcNow < deadline)
+                        stopped = false;
+                    if (!stopped && limit is null && StartingDesign.Find(variant, Min(deadline, DateTime.UtcNow + QuickStartBudget)) is { } start)
+                        Whole(start);
+                }
+                untilCutoff = limit is null;
+                if (untilCutoff && !stopped)
                     Descend(0);
                 untilCutoff = false;
                 if (!stopped && limit is not null)
@@ -288,12 +307,21 @@ internal sealed partial class SelectionEnumerator
             return Leaf();
         if ((++nodes & 1023) == 0)
         {
-            if (cancellation.IsCancellationRequested || DateTime.UtcNow >= deadline)
+            if (cancellation.IsCancellationRequested || DateTime.UtcNow >= stopAt)
                 stopped = true;
-            // Variants running beside this one tighten the shared cutoff too (not while a band is collected
-            // under its own ceiling).
-            if (!collecting && cutoff() is { } latest && (limit is not { } own || latest.CompareTo(own) < 0))
-                limit = latest;
+            // Variants running beside this one tighten the shared cutoff too. A band is collected under its
+            // own ceiling, which the shared cutoff may only lower: a generator dearer than the cutoff can
+            // never enter the list, whatever its frequency error.
+            if (cutoff() is { } latest)
+            {
+                if (collecting)
+                {
+                    if (latest.Cost < limit!.Value.Cost)
+                        limit = new SearchCutoff(latest.Cost, double.PositiveInfinity);
+                }
+                else if (limit is not { } own || latest.CompareTo(own) < 0)
+                    limit = latest;
+            }
         }
         if (stopped || (untilCutoff && limit is not null))
             return -1;
@@ -556,7 +584,7 @@ internal sealed partial class SelectionEnumerator
     private int Leaf()
     {
         var depth = order.Length;
-        if (dividerDepth >= 0 && !ThresholdsReachFurther())
+        if (dividerDepth >= 0 && (!ThresholdsReachFurther() || ThresholdsOutside()))
             return depth - 1;
 
         // The extra slots (decoupling) do not make a different circuit: the cheapest that fits is taken.
@@ -597,6 +625,13 @@ internal sealed partial class SelectionEnumerator
         if (limit is { } tie && DutyMarginRanksAfter(tie, total, depth, snapshot))
             return depth - 1;
 
+        if (dividerDepth >= 0 && failedDividers.Contains(DividerKey()))
+            return depth - 1;
+        if ((Judged & 15) == 0 && (cancellation.IsCancellationRequested || DateTime.UtcNow >= stopAt))
+        {
+            stopped = true; // judging is what takes the time: checked here too, not only every 1,024 nodes
+            return -1;
+        }
         Judged++;
         var verdict = verify(snapshot);
         if (verdict.Payload is DesignJudgement judged)
@@ -609,6 +644,10 @@ internal sealed partial class SelectionEnumerator
         if (verdict.Payload is not DesignJudgement judgement || judgement.Accepted)
             return verdict.CutSlots is { } cut ? cut.Max(s => position[s]) : depth - 1; // invalid, or a yield short
         var plain = variant.PlainScope(judgement);
+        if (dividerDepth >= 0 && plain.All(s => s == dividerRa || s == dividerPot || s == dividerRb))
+            failedDividers.Add(DividerKey()); // fails with any generator and ramp: never judged again
+        if (dividerDepth >= 0 && variant.ThresholdsLeaveComparatorRange(judgement))
+            LearnThresholdsOutside();
         if (plain.Count < roleCount || !judgement.Missed.Contains(MissedTarget.DutyRange))
             return plain.Max(s => position[s]);
         if (variant.Prototype.DutyControl is ControlVoltageDuty)
@@ -626,6 +665,10 @@ internal sealed partial class SelectionEnumerator
         }
         return depth - 1;
     }
+
+    /// <summary>The threshold divider's options as one key (<see cref="failedDividers"/>).</summary>
+    private long DividerKey() =>
+        ((long)choice[dividerRa] * problem.Slots[dividerPot].Options.Count + choice[dividerPot]) * problem.Slots[dividerRb].Options.Count + choice[dividerRb];
 
     /// <summary>
     /// True when a whole design, not yet judged, cannot rank before the cutoff: dearer; as dear with a larger

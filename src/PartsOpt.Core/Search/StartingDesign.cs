@@ -20,10 +20,8 @@ internal static class StartingDesign
         var requirement = variant.Context.Requirement;
         var roleSlots = variant.RoleNames.Count;
         double Value(int slot, int option) => ((StockChoice)slots[slot].Options[option].Tag!).Value;
-        var judged = 0;
         DesignJudgement? Judge(int[] choice)
         {
-            judged++;
             try
             {
                 return DesignJudge.Judge(requirement, variant.DesignOf(choice));
@@ -33,7 +31,7 @@ internal static class StartingDesign
                 return null;
             }
         }
-        bool TimeLeft() => judged % 32 != 0 || DateTime.UtcNow < deadlineUtc;
+        bool TimeLeft() => DateTime.UtcNow < deadlineUtc;
 
         var choice = PlainChoice(variant);
         if (choice is null)
@@ -68,7 +66,7 @@ internal static class StartingDesign
         // Repair: one role at a time, the option with the smallest shortfall (then the lowest cost).
         for (var pass = 0; pass < RepairPasses && !best.Judgement.Accepted && TimeLeft(); pass++)
             for (var slot = 0; slot < roleSlots && !best.Judgement.Accepted && TimeLeft(); slot++)
-                for (var option = 0; option < slots[slot].Options.Count; option++)
+                for (var option = 0; option < slots[slot].Options.Count && TimeLeft(); option++)
                 {
                     if (option == best.Choice[slot])
                         continue;
