@@ -8,12 +8,15 @@ namespace PartsOpt.Benchmarks;
 public static class SearchProbe
 {
     /// <param name="arguments">Cases to run (demo, large, demo-loop-1k, medium; default all), and optionally
-    /// <c>--limit</c> seconds (default 30).</param>
+    /// <c>--limit</c> seconds (default 30), and <c>--repeat</c> warm runs whose median is printed (default 1).</param>
     public static void Run(IReadOnlyList<string> arguments)
     {
         var limitAt = arguments.ToList().IndexOf("--limit");
         var limitSeconds = limitAt >= 0 ? double.Parse(arguments[limitAt + 1], CultureInfo.InvariantCulture) : 30;
-        var which = arguments.Where((_, i) => limitAt < 0 || (i != limitAt && i != limitAt + 1)).ToList();
+        var repeatAt = arguments.ToList().IndexOf("--repeat");
+        var repeats = repeatAt >= 0 ? int.Parse(arguments[repeatAt + 1], CultureInfo.InvariantCulture) : 1;
+        bool IsOption(int i) => (limitAt >= 0 && (i == limitAt || i == limitAt + 1)) || (repeatAt >= 0 && (i == repeatAt || i == repeatAt + 1));
+        var which = arguments.Where((_, i) => !IsOption(i)).ToList();
         var cases = new (string Name, Func<Stock> Stock, SearchRequirement Requirement)[]
         {
             ("demo", SearchStocks.Demo, SearchStocks.UsualQuestion()),
@@ -33,10 +36,17 @@ public static class SearchProbe
             var outcome = DesignSearch.Run(requirement, stock, new SearchOptions { TimeLimit = TimeSpan.FromSeconds(limitSeconds) });
             var first = clock.Elapsed;
             // Once more, warm (the first run includes compiling the engine): what a running service sees.
-            clock.Restart();
-            var again = DesignSearch.Run(requirement, stock, new SearchOptions { TimeLimit = TimeSpan.FromSeconds(limitSeconds) });
+            var warm = new List<double>();
+            SearchOutcome again = outcome;
+            for (var run = 0; run < repeats; run++)
+            {
+                clock.Restart();
+                again = DesignSearch.Run(requirement, stock, new SearchOptions { TimeLimit = TimeSpan.FromSeconds(limitSeconds) });
+                warm.Add(clock.Elapsed.TotalMilliseconds);
+            }
+            warm.Sort();
             Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                $"{name}: {stock.Parts.Count} parts, {stock.OpAmps.Count} op-amps: {outcome.Status} in {first.TotalMilliseconds:F0} ms (warm: {again.Status} in {clock.Elapsed.TotalMilliseconds:F0} ms), {outcome.Solves} designs judged, {outcome.Designs.Count} designs listed (limit {limitSeconds} s)"));
+                $"{name}: {stock.Parts.Count} parts, {stock.OpAmps.Count} op-amps: {outcome.Status} in {first.TotalMilliseconds:F0} ms (warm: {again.Status} in {warm[warm.Count / 2]:F0} ms median of {repeats}, {warm[0]:F0} … {warm[^1]:F0}), {outcome.Solves} designs judged, {outcome.Designs.Count} designs listed (limit {limitSeconds} s)"));
             foreach (var design in outcome.Designs.Take(3))
                 Console.WriteLine(string.Create(CultureInfo.InvariantCulture, $"  #{design.Rank} {design.Topology} {design.Cost.PerBoard:F4}"));
         }
