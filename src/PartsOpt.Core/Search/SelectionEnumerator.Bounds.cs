@@ -14,11 +14,10 @@ internal sealed partial class SelectionEnumerator
         double low = double.NegativeInfinity, high = double.PositiveInfinity;
         foreach (var b in boundsOf[slot])
         {
-            var bound = problem.Bounds[b];
-            var (coefficient, restMin, restMax) = Split(bound, slot);
+            var (coefficient, restMin, restMax) = Split(b, slot);
             if (coefficient == 0 || double.IsNaN(restMin) || double.IsNaN(restMax))
                 continue;
-            double from = (bound.Lower - restMax) / coefficient, to = (bound.Upper - restMin) / coefficient;
+            double from = (boundLower[b] - restMax) / coefficient, to = (boundUpper[b] - restMin) / coefficient;
             if (coefficient < 0)
                 (from, to) = (to, from);
             low = Math.Max(low, from - Slack);
@@ -31,11 +30,11 @@ internal sealed partial class SelectionEnumerator
     /// A bound split around one slot: the slot's total coefficient in it, and the least and greatest sum the
     /// other terms can still reach.
     /// </summary>
-    private (int Coefficient, double RestMin, double RestMax) Split(LogBound bound, int slot)
+    private (int Coefficient, double RestMin, double RestMax) Split(int bound, int slot)
     {
         var coefficient = 0;
         double restMin = 0, restMax = 0;
-        foreach (var term in bound.Terms)
+        foreach (var term in boundTerms[bound])
         {
             if (term.Kind == TermKind.Slot && term.Index == slot)
             {
@@ -59,10 +58,9 @@ internal sealed partial class SelectionEnumerator
         var count = 0;
         foreach (var b in boundsOf[slot])
         {
-            var bound = problem.Bounds[b];
             double min = 0, max = 0, fixedMin = 0, fixedMax = 0;
             var key = 0L;
-            foreach (var term in bound.Terms)
+            foreach (var term in boundTerms[b])
             {
                 var (lo, hi) = TermRange(term);
                 if (double.IsNaN(lo))
@@ -74,11 +72,11 @@ internal sealed partial class SelectionEnumerator
                 else
                     (fixedMin, fixedMax) = (fixedMin + lo, fixedMax + hi);
             }
-            if (min > bound.Upper + Slack || max < bound.Lower - Slack)
+            if (min > boundUpper[b] + Slack || max < boundLower[b] - Slack)
                 return false;
             if (key == 0)
                 continue;
-            var (low, high) = (bound.Lower - fixedMax, bound.Upper - fixedMin);
+            var (low, high) = (boundLower[b] - fixedMax, boundUpper[b] - fixedMin);
             var merged = false;
             for (var i = 0; i < count; i++)
                 if (free[i].Key == key)
@@ -152,10 +150,9 @@ internal sealed partial class SelectionEnumerator
 
     private (double Min, double Max) BucketRange(int index)
     {
-        var buckets = problem.Buckets[index];
         var ratio = 0.0;
         var key = 0L;
-        foreach (var term in buckets.Ratio)
+        foreach (var term in bucketRatio[index])
         {
             if (!assigned[term.Index])
                 return bucketRange[index];
@@ -164,18 +161,18 @@ internal sealed partial class SelectionEnumerator
         }
         if (bucketMemo[index].Key == key)
             return bucketMemo[index].Range;
-        var range = FindBucket(buckets, ratio);
+        var range = FindBucket(index, ratio);
         bucketMemo[index] = (key, range);
         return range;
     }
 
     /// <summary>The factor range of the bucket(s) holding a ratio; NaN when no stocked pair has it.</summary>
-    private static (double Min, double Max) FindBucket(RatioBuckets buckets, double ratio)
+    private (double Min, double Max) FindBucket(int index, double ratio)
     {
         // Edges are sorted; a ratio no stocked pair of the buckets has cannot work (that pair was left out).
         double min = double.PositiveInfinity, max = double.NegativeInfinity;
-        var edges = buckets.Edges;
-        int lo = 0, hi = edges.Count;
+        var edges = bucketEdges[index];
+        int lo = 0, hi = edges.Length;
         while (lo < hi)
         {
             var mid = (lo + hi) / 2;
@@ -184,24 +181,24 @@ internal sealed partial class SelectionEnumerator
             else
                 hi = mid;
         }
-        for (var j = lo; j < edges.Count && edges[j].Low <= ratio + 1e-9; j++)
+        for (var j = lo; j < edges.Length && edges[j].Low <= ratio + 1e-9; j++)
         {
-            min = Math.Min(min, buckets.Low[j]);
-            max = Math.Max(max, buckets.High[j]);
+            min = Math.Min(min, bucketLow[index][j]);
+            max = Math.Max(max, bucketHigh[index][j]);
         }
         return min <= max ? (min, max) : (double.NaN, double.NaN);
     }
 
     private (double Min, double Max) GroupRange(int index)
     {
-        var group = problem.Groups[index];
-        foreach (var slot in group.Slots)
+        var slots = groupSlots[index];
+        foreach (var slot in slots)
             if (!assigned[slot])
                 return groupRange[index];
         var key = 0L;
-        foreach (var slot in group.Slots)
+        foreach (var slot in slots)
             key = key * 100_003 + choice[slot];
-        var value = groupIndex[index].TryGetValue(key, out var k) ? group.LogValues[k] : double.NaN;
+        var value = groupIndex[index].TryGetValue(key, out var k) ? groupLogValues[index][k] : double.NaN;
         return (value, value);
     }
 

@@ -39,6 +39,16 @@ internal sealed partial class SelectionEnumerator
     private readonly (double Min, double Max)[] bucketRange;
     private readonly (double Min, double Max)[] groupRange;
     private readonly Dictionary<long, int>[] groupIndex;
+
+    // The problem's bounds, buckets and groups as plain arrays: read at every node, where the lists'
+    // interface enumerators cost an allocation and a virtual call each.
+    private readonly LogTerm[][] boundTerms;
+    private readonly double[] boundLower, boundUpper;
+    private readonly LogTerm[][] bucketRatio;
+    private readonly (double Low, double High)[][] bucketEdges;
+    private readonly double[][] bucketLow, bucketHigh;
+    private readonly int[][] groupSlots;
+    private readonly double[][] groupLogValues;
     private readonly int dividerRa, dividerPot, dividerRb, dividerDepth;
 
     /// <summary>
@@ -137,6 +147,16 @@ internal sealed partial class SelectionEnumerator
                 index[Key(g.Tuples[k])] = k;
             return index;
         }).ToArray();
+
+        boundTerms = problem.Bounds.Select(b => b.Terms.ToArray()).ToArray();
+        boundLower = problem.Bounds.Select(b => b.Lower).ToArray();
+        boundUpper = problem.Bounds.Select(b => b.Upper).ToArray();
+        bucketRatio = problem.Buckets.Select(b => b.Ratio.ToArray()).ToArray();
+        bucketEdges = problem.Buckets.Select(b => b.Edges.ToArray()).ToArray();
+        bucketLow = problem.Buckets.Select(b => b.Low.ToArray()).ToArray();
+        bucketHigh = problem.Buckets.Select(b => b.High.ToArray()).ToArray();
+        groupSlots = problem.Groups.Select(g => g.Slots.ToArray()).ToArray();
+        groupLogValues = problem.Groups.Select(g => g.LogValues.ToArray()).ToArray();
 
         var touching = slots.Select(_ => new List<int>()).ToArray();
         for (var b = 0; b < problem.Bounds.Count; b++)
@@ -457,11 +477,11 @@ internal sealed partial class SelectionEnumerator
     {
         if (frequencyBound < 0)
             return null;
-        var bound = problem.Bounds[frequencyBound];
-        var (coefficient, restMin, restMax) = Split(bound, slot);
-        if (coefficient == 0 || !double.IsFinite(bound.Lower) || !double.IsFinite(bound.Upper) || double.IsNaN(restMin))
+        var (coefficient, restMin, restMax) = Split(frequencyBound, slot);
+        double lower = boundLower[frequencyBound], upper = boundUpper[frequencyBound];
+        if (coefficient == 0 || !double.IsFinite(lower) || !double.IsFinite(upper) || double.IsNaN(restMin))
             return null;
-        return ((bound.Lower + bound.Upper) / 2 - (restMin + restMax) / 2) / coefficient;
+        return ((lower + upper) / 2 - (restMin + restMax) / 2) / coefficient;
     }
 
     /// <summary>Fills one slot with one option and goes deeper if the bounds allow; returns as <see cref="Descend"/> does for the level.</summary>
