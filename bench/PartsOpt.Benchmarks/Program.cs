@@ -31,7 +31,7 @@ if (args is ["probe-pools", .. var sizes])
     var question = StockingPlanBenchmarks.Portfolio();
     var all = new PartsOpt.Planning.PlanLines(question).All;
     foreach (var size in sizes.Length > 0 ? sizes.Select(int.Parse) : [40])
-        foreach (var item in question.Requirements)
+        foreach (var item in question.Requirements.Where(r => Environment.GetEnvironmentVariable("PROBE_ONLY") is not { } only || r.Name.Contains(only, StringComparison.Ordinal)))
         {
             var clock = System.Diagnostics.Stopwatch.StartNew();
             var outcome = PartsOpt.Search.DesignSearch.Run(item.Requirement with { MaxResults = size }, all,

@@ -44,6 +44,10 @@ internal static class FrequencyRelaxation
         var amp = variant.Prototype.Amplifier;
         var band = variant.Context.Requirement.Frequency;
         double periodMin = Math.Max(1 / band.Max, EdgeLimitedPeriod(variant.Prototype)), periodMax = 1 / band.Min;
+        // The engine's edge check wants that period whatever the parts; the bounds below could lose it in
+        // the slewing edges' slack (a slow comparator's edges are long), so a band ending below it is read here.
+        if (periodMin > periodMax * (1 + 1e-9))
+            return new Result([], [Impossible(FigureNames.Frequency)]);
         var edge = (supply.SpanV - amp.OutputHeadroomHighV - amp.OutputHeadroomLowV) / amp.SlewRateVPerS;
         var levels = new Levels(supply, amp);
         var bounds = new List<LogBound>();

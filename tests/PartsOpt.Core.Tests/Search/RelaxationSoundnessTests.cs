@@ -122,6 +122,46 @@ public class RelaxationSoundnessTests
         Assert.All(counts[..^1], c => Assert.InRange(c, per, per + values.Length));
     }
 
+    /// <summary>
+    /// A comparator whose rise plus fall (full swing over its slew rate, twice) needs a period longer than
+    /// the band allows fails the engine's edge check (within 5 % of the period, common practice) whatever
+    /// the parts. With a single supply the slewing edges' slack in the period bounds used to hide that (the
+    /// bipolar variants then walked their whole tree for 30 s); the variant is now ruled out at once, and
+    /// the engine agrees on every design of it that was sampled.
+    /// </summary>
+    [Theory]
+    [InlineData(TopologyKind.RcRamp)]
+    [InlineData(TopologyKind.Loop)]
+    [InlineData(TopologyKind.ThreeStage)]
+    public void A_comparator_too_slow_for_the_band_rules_its_variant_out(TopologyKind topology)
+    {
+        var stock = TestStock.Stockroom(TestStock.OpAmp("LM358", TestStock.DualBipolar, 0.12m));
+        // 0.3 V/µs over about 10.45 V: 70 µs of edges want a period of 1.4 ms; the band asks for 0.2 ms.
+        var requirement = TestStock.PwmAt20Kilohertz(topology) with { Supply = Supply.SingleRail(12), Frequency = new Band(4500, 0.1) };
+        var variant = new SearchVariant(new SearchContext(requirement, stock), topology, 0, null, false);
+
+        Assert.Contains(variant.Problem.Bounds, b => b.Figure == FigureNames.Frequency && b.Lower > b.Upper);
+        var random = new Random(11);
+        for (var sample = 0; sample < 300; sample++)
+        {
+            var choice = variant.Problem.Slots.Select(slot => random.Next(slot.Options.Count)).ToArray();
+            DesignJudgement judgement;
+            try
+            {
+                judgement = DesignJudge.Judge(requirement, variant.DesignOf(choice));
+            }
+            catch (DesignValidationException)
+            {
+                continue;
+            }
+            Assert.False(judgement.Accepted);
+            if (judgement.Evaluation.Figure(FigureNames.Frequency) is { } f && requirement.Frequency.Contains(f))
+                Assert.Contains("output edges short against the period", judgement.FailedChecks);
+        }
+        var outcome = DesignSearch.Run(requirement, stock);
+        Assert.Equal(SearchStatus.Infeasible, outcome.Status);
+    }
+
     [Fact]
     public void Buckets_are_exact_when_there_are_fewer_ratios_than_buckets()
     {
