@@ -99,6 +99,7 @@ internal sealed partial class SelectionEnumerator
                 fits = Assign(order[filled], generatorOptions[generator.Offset + filled]);
             var least = partialObjective + LowerBoundOfRest(width).Bound;
             errorAtFrequencyDepth = double.NaN;
+            integratorInputFloor = double.NegativeInfinity;
             for (var d = 0; d < width; d++)
                 (needTopAbove[d], needBottomBelow[d]) = (double.NegativeInfinity, double.PositiveInfinity);
             if (dutyFrame < width)

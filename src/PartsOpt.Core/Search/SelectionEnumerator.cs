@@ -57,6 +57,10 @@ internal sealed partial class SelectionEnumerator
     /// </summary>
     private readonly HashSet<long> failedDividers = [];
 
+    /// <summary>The three-stage integrator's input resistor when it is filled below the square-wave generator (else −1), and its learnt floor (ln Ω).</summary>
+    private readonly int integratorInput;
+    private double integratorInputFloor = double.NegativeInfinity;
+
     // Search state.
     private readonly int[] choice;
     private readonly bool[] assigned;
@@ -194,6 +198,10 @@ internal sealed partial class SelectionEnumerator
         learnsDuty = dividerDepth == order.Length - 1 && new[] { dividerRa, dividerPot, dividerRb }.All(s => position[s] >= order.Length - 3);
         dutyFrame = learnsDuty ? order.Length - 4 : -1;
         rampSlots = variant.ScopeOf(MissedTarget.TriangleAmplitude);
+        integratorInput = variant.Topology == TopologyKind.ThreeStage && variant.SlotOf(Roles.IntR) is >= 0 and var intR
+            && frequencyDepth >= 0 && position[intR] > frequencyDepth
+            ? intR
+            : -1;
         forecast = frequencyDepth >= 0 && FrequencyForecast.For(variant) is { } f && f.Slots.All(s => position[s] <= frequencyDepth) ? f : null;
         // The slots with a one-line option on each line (their reuse count rises when the line comes onto
         // the BOM), and the cheapest options of the slots from each depth on (the extra slots included).
@@ -348,6 +356,8 @@ internal sealed partial class SelectionEnumerator
 
         var slot = order[depth];
         var (low, high) = AllowedLog(slot);
+        if (slot == integratorInput)
+            low = Math.Max(low, Math.BitIncrement(integratorInputFloor));
         if (!(low <= high))
             return depth - 1;
 
@@ -489,7 +499,10 @@ internal sealed partial class SelectionEnumerator
     {
         var next = depth;
         if (depth == frequencyDepth)
+        {
             errorAtFrequencyDepth = double.NaN; // known again only after this option's partial check
+            integratorInputFloor = double.NegativeInfinity; // learnt anew for each generator
+        }
         var before = exhausted;
         if (Assign(slot, o))
         {
@@ -588,6 +601,8 @@ internal sealed partial class SelectionEnumerator
             if (!Admits(partialObjective + LowerBoundOfRest(depth + 1).Bound, depth))
                 return depth;
         }
+        if (judgement is not null)
+            LearnIntegratorInputFloor(judgement);
         if (judgement is null || judgement.Accepted)
             return depth + 1;
         var deepest = -1;
@@ -661,6 +676,8 @@ internal sealed partial class SelectionEnumerator
             onAccepted(new AcceptedChoice(snapshot, total, verdict));
             return depth - 1;
         }
+        if (verdict.Payload is DesignJudgement rejected)
+            LearnIntegratorInputFloor(rejected);
         if (verdict.Payload is not DesignJudgement judgement || judgement.Accepted)
             return verdict.CutSlots is { } cut ? cut.Max(s => position[s]) : depth - 1; // invalid, or a yield short
         var plain = variant.PlainScope(judgement);
@@ -684,6 +701,18 @@ internal sealed partial class SelectionEnumerator
                 needBottomBelow[frame] = Math.Min(needBottomBelow[frame], bottom);
         }
         return depth - 1;
+    }
+
+    /// <summary>
+    /// Three-stage: the oscillator's output drives the timing resistor, the hysteresis divider and the
+    /// integrator's input resistor, which draws level/int.r (CircuitChecks.OutputCurrents): with the square-wave
+    /// generator fixed, the output-current check only improves as int.r grows. A design rejected on it puts
+    /// a floor under int.r for every completion of the same generator: no value at or below it is tried.
+    /// </summary>
+    private void LearnIntegratorInputFloor(DesignJudgement judgement)
+    {
+        if (integratorInput >= 0 && assigned[integratorInput] && judgement.FailedChecks.Contains("output current (oscillator)"))
+            integratorInputFloor = Math.Max(integratorInputFloor, logs[integratorInput][choice[integratorInput]]);
     }
 
     /// <summary>The threshold divider's options as one key (<see cref="failedDividers"/>).</summary>
