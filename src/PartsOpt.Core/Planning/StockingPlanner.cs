@@ -93,6 +93,18 @@ public static class StockingPlanner
                 + selection.Chosen.Select((c, r) => c is null ? 0 : units[r] * c.PerBoard).Sum();
             var weak = Enumerable.Range(0, requirements.Count).Where(r => pools[r] is { } pool
                 && !pool.Complete && !(LowerBound(r) >= found)).ToList();
+            // Sharper: the line-selection model itself, where each weak requirement may also take a stand-in
+            // for every design left out of its pool: the pool's floor per board and no line of its own (it
+            // may share any line the plan holds). Its optimum bounds every plan that uses a design left out;
+            // pools whose stand-in that optimum takes are the ones to grow.
+            if (weak.Count > 0 && weak.All(r => pools[r]!.Floor is not null)
+                && LineSelectionModel.Solve(WithStandIns(weak), units, lines, question.HoldingCostPerLine, question.KeepExisting,
+                    options.EffectiveSolverTimeLimit, options.Seed, cancellation) is { Status: CpSolverStatus.Optimal, Rounded: false } bound)
+            {
+                var least = question.HoldingCostPerLine * bound.Lines.Count
+                    + bound.Chosen.Select((c, r) => c is null ? 0 : units[r] * c.PerBoard).Sum();
+                weak = least >= found ? [] : weak.Where(r => bound.Chosen[r] is { Lines.Count: 0 } c && c.PerBoard == pools[r]!.Floor).ToList();
+            }
             if (weak.Count == 0)
             {
                 bounded = true;
@@ -108,6 +120,14 @@ public static class StockingPlanner
                 AddColumns(r, pools[r]!.Outcome);
             }
         }
+
+        // The columns with a stand-in for the designs each weak requirement's pool left out (see above); the
+        // stand-in carries the pool's last design only as a placeholder, it is never reported.
+        List<IReadOnlyList<DesignColumn>> WithStandIns(IReadOnlyList<int> weak) => columns
+            .Select((list, r) => weak.Contains(r)
+                ? (IReadOnlyList<DesignColumn>)[.. list, new DesignColumn(r, pools[r]!.Outcome.Designs[^1], [], pools[r]!.Floor!.Value, null)]
+                : list)
+            .ToList();
 
         decimal? LowerBound(int r)
         {
