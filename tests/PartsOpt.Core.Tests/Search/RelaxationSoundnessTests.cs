@@ -15,6 +15,8 @@ public class RelaxationSoundnessTests
     private static readonly double[] E24 =
         [1.0, 1.1, 1.2, 1.3, 1.5, 1.6, 1.8, 2.0, 2.2, 2.4, 2.7, 3.0, 3.3, 3.6, 3.9, 4.3, 4.7, 5.1, 5.6, 6.2, 6.8, 7.5, 8.2, 9.1];
 
+    private static readonly string[] RedrawnWithTheGenerator = [Roles.IntC, Roles.IntRf, Roles.CmpRa, Roles.CmpPot, Roles.CmpRb];
+
     private static readonly double[] PotValues = [1e3, 2e3, 5e3, 10e3, 20e3, 50e3, 100e3, 200e3, 500e3];
 
     private static IEnumerable<double> E24Between(int fromDecade, int toDecade) =>
@@ -160,6 +162,104 @@ public class RelaxationSoundnessTests
         }
         var outcome = DesignSearch.Run(requirement, stock);
         Assert.Equal(SearchStatus.Infeasible, outcome.Status);
+    }
+
+    /// <summary>
+    /// The fact the integrator-input floor rests on, against the engine: with the square-wave generator held,
+    /// a three-stage design that fails the oscillator's output-current check fails it with every smaller
+    /// int.r too, whatever the integrator capacitor, feedback resistor and divider.
+    /// </summary>
+    [Theory]
+    [InlineData(false)]
+    [InlineData(true)]
+    public void An_oscillator_short_of_current_stays_short_with_a_smaller_integrator_input(bool singleSupply)
+    {
+        var parts = E24Between(2, 5).Select((v, i) => TestStock.Resistor($"R{i:000}", v, 0.01m)).ToList();
+        parts.AddRange(Enumerable.Range(-9, 3).Select(e => TestStock.Capacitor($"C{e}", Math.Pow(10, e), 0.05m)));
+        parts.AddRange(PotValues.Take(4).Select((v, i) => TestStock.Pot($"P{i}", v, 0.4m)));
+        var stock = new Stock(parts, [TestStock.OpAmp("TL074", TestStock.QuadJfet, 0.35m)]);
+        var requirement = TestStock.PwmAt20Kilohertz(TopologyKind.ThreeStage) with
+        {
+            Supply = singleSupply ? Supply.SingleRail(24) : Supply.Symmetric(12),
+        };
+        var variant = new SearchVariant(new SearchContext(requirement, stock), TopologyKind.ThreeStage, 0, null, false);
+        var intR = variant.SlotOf(Roles.IntR);
+        var options = variant.Problem.Slots[intR].Options;
+        double Value(int o) => ((StockChoice)options[o].Tag!).Value;
+        var random = new Random(5);
+        var failing = 0;
+        for (var sample = 0; sample < 400 && failing < 40; sample++)
+        {
+            var choice = variant.Problem.Slots.Select(slot => random.Next(slot.Options.Count)).ToArray();
+            if (Judge(choice) is not { } judgement || !judgement.FailedChecks.Contains("output current (oscillator)"))
+                continue;
+            failing++;
+            var at = Value(choice[intR]);
+            foreach (var smaller in Enumerable.Range(0, options.Count).Where(o => Value(o) < at))
+            {
+                var trial = (int[])choice.Clone();
+                trial[intR] = smaller;
+                // The integrator's parts and the divider drawn afresh: only the generator is held.
+                foreach (var role in RedrawnWithTheGenerator)
+                    trial[variant.SlotOf(role)] = random.Next(variant.Problem.Slots[variant.SlotOf(role)].Options.Count);
+                if (Judge(trial) is { } other)
+                    Assert.Contains("output current (oscillator)", other.FailedChecks);
+            }
+        }
+        Assert.True(failing >= 10, $"only {failing} designs short of current sampled");
+
+        DesignJudgement? Judge(int[] choice)
+        {
+            try
+            {
+                return DesignJudge.Judge(requirement, variant.DesignOf(choice));
+            }
+            catch (DesignValidationException)
+            {
+                return null;
+            }
+        }
+    }
+
+    /// <summary>
+    /// Three-stage on low-value resistors, the cheapest first, where the oscillator's output (timing
+    /// resistor, hysteresis divider and integrator input together) runs out of current: the branch and bound
+    /// learns a floor under int.r from each such rejection and tries no value at or below it under the same
+    /// generator. Checked against the tests' exhaustive reference on the cheapest cost, and the stock is
+    /// shown to hold designs that fail on exactly that check.
+    /// </summary>
+    [Theory]
+    [InlineData(4.5e3)]
+    [InlineData(9e3)]
+    public void The_integrator_input_floor_keeps_the_cheapest_design(double frequency)
+    {
+        var parts = new List<StockPart>
+        {
+            TestStock.Resistor("R-1K2", 1.2e3, 0.001m), TestStock.Resistor("R-1K5", 1.5e3, 0.002m),
+            TestStock.Resistor("R-10K", 10e3, 0.003m), TestStock.Resistor("R-47K", 47e3, 0.004m),
+            TestStock.Capacitor("C-10N", 10e-9, 0.02m), TestStock.Capacitor("C-470N", 470e-9, 0.03m),
+            TestStock.Capacitor("C-100N", 100e-9, 0.02m, Dielectric.X7R),
+            TestStock.Pot("P-10K", 10e3, 0.4m),
+        };
+        var stock = new Stock(parts, [TestStock.OpAmp("TL074", TestStock.QuadJfet, 0.35m)]);
+        var requirement = TestStock.PwmAt20Kilohertz(TopologyKind.ThreeStage) with
+        {
+            Frequency = new Band(frequency, 0.3),
+            Duty = new DutyRequirement(0.2, 0.8),
+            BuildQuantity = 10,
+            Costs = new CostModel(0m, 0m), // parts alone: the cheap low values are tried first
+        };
+
+        var reference = ExhaustiveReference.Cheapest(requirement, stock);
+        var outcome = DesignSearch.Run(requirement, stock, new SearchOptions(TimeSpan.FromSeconds(600)));
+
+        Assert.NotNull(reference);
+        Assert.Equal(SearchStatus.Optimal, outcome.Status);
+        Assert.Equal(reference.TotalBuildCost, outcome.Designs[0].Cost.TotalBuildCost);
+        // The cheapest design with its integrator input at the lowest value fails on the oscillator's current.
+        var best = outcome.Designs[0].Design;
+        var loaded = best with { Roles = new Dictionary<string, RolePart>(best.Roles) { [Roles.IntR] = best.Roles[Roles.IntR] with { Value = 1.2e3 } } };
+        Assert.Contains("output current (oscillator)", DesignJudge.Judge(requirement, loaded).FailedChecks);
     }
 
     [Fact]
