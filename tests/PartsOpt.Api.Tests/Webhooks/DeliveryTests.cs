@@ -189,6 +189,8 @@ public sealed class DeliveryTests
         Assert.Null(enabled.DisabledAtUtc);
 
         await Webhook.Eventually(() => !receiver.Accepted.IsEmpty, "the pending event after enable");
+        // The receiver answers before the worker records the attempt: wait for the record, not only the answer.
+        await Webhook.Eventually(async () => (await client.Attempts(subscription.Id)).Count >= 4, "the fourth attempt recorded");
         Assert.Equal(4, (await client.Attempts(subscription.Id)).Count);
     }
 
