@@ -275,6 +275,7 @@ internal sealed partial class SelectionEnumerator
                 // within it, collected with its cheapest completion and forecast frequency error, then
                 // completed in rank order until the next one ranks after the cutoff.
                 untilCutoff = limit is null;
+                var walked = false; // the whole tree, with no design in it
                 if (untilCutoff && QuickStart)
                 {
                     // Usually the walk finds a first design at once. Where it does not within a short look,
@@ -283,13 +284,14 @@ internal sealed partial class SelectionEnumerator
                     stopAt = Min(deadline, DateTime.UtcNow + FirstLookBudget);
                     Descend(0);
                     stopAt = deadline;
+                    walked = !stopped && limit is null;
                     if (stopped && !cancellation.IsCancellationRequested && DateTime.UtcNow < deadline)
                         stopped = false;
-                    if (!stopped && limit is null && StartingDesign.Find(variant, Min(deadline, DateTime.UtcNow + QuickStartBudget)) is { } start)
+                    if (!walked && !stopped && limit is null && StartingDesign.Find(variant, Min(deadline, DateTime.UtcNow + QuickStartBudget)) is { } start)
                         Whole(start);
                 }
                 untilCutoff = limit is null;
-                if (untilCutoff && !stopped)
+                if (untilCutoff && !stopped && !walked)
                     Descend(0);
                 untilCutoff = false;
                 if (!stopped && limit is not null)
