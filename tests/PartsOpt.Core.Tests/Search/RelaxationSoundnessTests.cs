@@ -165,6 +165,76 @@ public class RelaxationSoundnessTests
     }
 
     /// <summary>
+    /// The facts the learnt threshold cut rests on, against the engine: a design rejected on the comparator's
+    /// input range with its ramp inside has the pot's thresholds outside, a failure of the divider's roles
+    /// alone; and every other design, any generator and ramp, whose top threshold reaches at least a top
+    /// found above the range (or whose bottom reaches at most a bottom found below it) is rejected, on that
+    /// check whenever it oscillates.
+    /// </summary>
+    [Fact]
+    public void Thresholds_learnt_outside_the_comparator_range_fail_with_any_ramp()
+    {
+        var parts = E24Between(3, 6).Select((v, i) => TestStock.Resistor($"R{i:000}", v, 0.01m)).ToList();
+        parts.AddRange(Enumerable.Range(-9, 3).Select(e => TestStock.Capacitor($"C{e}", Math.Pow(10, e), 0.05m)));
+        parts.AddRange(PotValues.Select((v, i) => TestStock.Pot($"P{i}", v, 0.4m)));
+        var stock = new Stock(parts, [TestStock.OpAmp("TL074", TestStock.QuadJfet, 0.35m)]); // inputs to 3 V above V−
+        var requirement = TestStock.PwmAt20Kilohertz(TopologyKind.RcRamp);
+        var variant = new SearchVariant(new SearchContext(requirement, stock), TopologyKind.RcRamp, 0, null, false);
+        int[] divider = [variant.SlotOf(Roles.CmpRa), variant.SlotOf(Roles.CmpPot), variant.SlotOf(Roles.CmpRb)];
+        double Value(int[] choice, int slot) => ((StockChoice)variant.Problem.Slots[slot].Options[choice[slot]].Tag!).Value;
+        (double Top, double Bottom) Thresholds(int[] choice)
+        {
+            double ra = Value(choice, divider[0]), pot = Value(choice, divider[1]), rb = Value(choice, divider[2]);
+            return ((rb + pot) / (ra + pot + rb), rb / (ra + pot + rb));
+        }
+
+        var random = new Random(17);
+        double topFrom = double.PositiveInfinity, bottomTo = double.NegativeInfinity;
+        for (var sample = 0; sample < 3000; sample++)
+        {
+            var choice = variant.Problem.Slots.Select(slot => random.Next(slot.Options.Count)).ToArray();
+            if (Judge(choice) is not { } judgement || !variant.ThresholdsLeaveComparatorRange(judgement))
+                continue;
+            Assert.Equal(divider.Order(), variant.ScopeOfCheck("input common-mode range (comparator)", judgement).Order());
+            var (top, bottom) = Thresholds(choice);
+            var (above, below) = variant.ThresholdsOutsideComparatorRange(top, bottom);
+            Assert.True(above || below);
+            if (above)
+                topFrom = Math.Min(topFrom, top);
+            if (below)
+                bottomTo = Math.Max(bottomTo, bottom);
+        }
+        Assert.True(double.IsFinite(topFrom) && double.IsFinite(bottomTo), "both sides learnt");
+
+        var checkedDesigns = 0;
+        for (var sample = 0; sample < 3000; sample++)
+        {
+            var choice = variant.Problem.Slots.Select(slot => random.Next(slot.Options.Count)).ToArray();
+            var (top, bottom) = Thresholds(choice);
+            if (!(top >= topFrom || bottom <= bottomTo) || Judge(choice) is not { } judgement)
+                continue;
+            Assert.False(judgement.Accepted);
+            if (judgement.Evaluation.Figure(FigureNames.Frequency) is null)
+                continue; // no oscillation, so no ramp to compare: rejected all the same
+            Assert.Contains("input common-mode range (comparator)", judgement.FailedChecks);
+            checkedDesigns++;
+        }
+        Assert.True(checkedDesigns > 100, $"only {checkedDesigns} designs checked");
+
+        DesignJudgement? Judge(int[] choice)
+        {
+            try
+            {
+                return DesignJudge.Judge(requirement, variant.DesignOf(choice));
+            }
+            catch (DesignValidationException)
+            {
+                return null;
+            }
+        }
+    }
+
+    /// <summary>
     /// The fact the integrator-input floor rests on, against the engine: with the square-wave generator held,
     /// a three-stage design that fails the oscillator's output-current check fails it with every smaller
     /// int.r too, whatever the integrator capacitor, feedback resistor and divider.
