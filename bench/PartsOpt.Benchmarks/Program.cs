@@ -24,24 +24,9 @@ if (args is ["probe-plan"])
     return;
 }
 
-if (args is ["probe-pools", .. var sizes])
+if (args is ["probe-pools", .. var poolArguments])
 {
-    // Each requirement of the stocking-plan portfolio searched once over every candidate line, as the planner's
-    // first pools are: how long each takes and what it proves (see probe-search).
-    var question = StockingPlanBenchmarks.Portfolio();
-    var all = new PartsOpt.Planning.PlanLines(question).All;
-    foreach (var size in sizes.Length > 0 ? sizes.Select(int.Parse) : [40])
-        foreach (var item in question.Requirements.Where(r => Environment.GetEnvironmentVariable("PROBE_ONLY") is not { } only || r.Name.Contains(only, StringComparison.Ordinal)))
-        {
-            var clock = System.Diagnostics.Stopwatch.StartNew();
-            var outcome = PartsOpt.Search.DesignSearch.Run(item.Requirement with { MaxResults = size }, all,
-                new PartsOpt.Search.SearchOptions(TimeSpan.FromSeconds(double.Parse(Environment.GetEnvironmentVariable("PROBE_LIMIT") ?? "30", System.Globalization.CultureInfo.InvariantCulture))));
-            Console.WriteLine(System.FormattableString.Invariant(
-                $"{item.Name} (pool {size}): {outcome.Status} in {clock.Elapsed.TotalMilliseconds:F0} ms, {outcome.Designs.Count} designs, {outcome.Solves} judged"));
-            if (outcome.Designs.Count == 0)
-                foreach (var report in outcome.Topologies)
-                    Console.WriteLine($"  {report.Topology}: {report.Blocking} nearest: {string.Join(", ", report.Nearest?.RoleParts.Select(kv => kv.Key + "=" + kv.Value) ?? [])} | {string.Join("; ", report.Nearest?.Misses ?? [])}");
-        }
+    PoolProbe.Run(poolArguments);
     return;
 }
 

@@ -146,16 +146,9 @@ public class RelaxationSoundnessTests
         var random = new Random(11);
         for (var sample = 0; sample < 300; sample++)
         {
-            var choice = variant.Problem.Slots.Select(slot => random.Next(slot.Options.Count)).ToArray();
-            DesignJudgement judgement;
-            try
-            {
-                judgement = DesignJudge.Judge(requirement, variant.DesignOf(choice));
-            }
-            catch (DesignValidationException)
-            {
+            var choice = RandomChoice(variant, random);
+            if (JudgeOrNull(requirement, variant, choice) is not { } judgement)
                 continue;
-            }
             Assert.False(judgement.Accepted);
             if (judgement.Evaluation.Figure(FigureNames.Frequency) is { } f && requirement.Frequency.Contains(f))
                 Assert.Contains("output edges short against the period", judgement.FailedChecks);
@@ -174,10 +167,7 @@ public class RelaxationSoundnessTests
     [Fact]
     public void Thresholds_learnt_outside_the_comparator_range_fail_with_any_ramp()
     {
-        var parts = E24Between(3, 6).Select((v, i) => TestStock.Resistor($"R{i:000}", v, 0.01m)).ToList();
-        parts.AddRange(Enumerable.Range(-9, 3).Select(e => TestStock.Capacitor($"C{e}", Math.Pow(10, e), 0.05m)));
-        parts.AddRange(PotValues.Select((v, i) => TestStock.Pot($"P{i}", v, 0.4m)));
-        var stock = new Stock(parts, [TestStock.OpAmp("TL074", TestStock.QuadJfet, 0.35m)]); // inputs to 3 V above V−
+        var stock = SampledStock(3, 6, PotValues.Length); // TL074 inputs reach only 3 V above V−
         var requirement = TestStock.PwmAt20Kilohertz(TopologyKind.RcRamp);
         var variant = new SearchVariant(new SearchContext(requirement, stock), TopologyKind.RcRamp, 0, null, false);
         int[] divider = [variant.SlotOf(Roles.CmpRa), variant.SlotOf(Roles.CmpPot), variant.SlotOf(Roles.CmpRb)];
@@ -192,8 +182,8 @@ public class RelaxationSoundnessTests
         double topFrom = double.PositiveInfinity, bottomTo = double.NegativeInfinity;
         for (var sample = 0; sample < 3000; sample++)
         {
-            var choice = variant.Problem.Slots.Select(slot => random.Next(slot.Options.Count)).ToArray();
-            if (Judge(choice) is not { } judgement || !variant.ThresholdsLeaveComparatorRange(judgement))
+            var choice = RandomChoice(variant, random);
+            if (JudgeOrNull(requirement, variant, choice) is not { } judgement || !variant.ThresholdsLeaveComparatorRange(judgement))
                 continue;
             Assert.Equal(divider.Order(), variant.ScopeOfCheck("input common-mode range (comparator)", judgement).Order());
             var (top, bottom) = Thresholds(choice);
@@ -209,9 +199,9 @@ public class RelaxationSoundnessTests
         var checkedDesigns = 0;
         for (var sample = 0; sample < 3000; sample++)
         {
-            var choice = variant.Problem.Slots.Select(slot => random.Next(slot.Options.Count)).ToArray();
+            var choice = RandomChoice(variant, random);
             var (top, bottom) = Thresholds(choice);
-            if (!(top >= topFrom || bottom <= bottomTo) || Judge(choice) is not { } judgement)
+            if (!(top >= topFrom || bottom <= bottomTo) || JudgeOrNull(requirement, variant, choice) is not { } judgement)
                 continue;
             Assert.False(judgement.Accepted);
             if (judgement.Evaluation.Figure(FigureNames.Frequency) is null)
@@ -220,18 +210,6 @@ public class RelaxationSoundnessTests
             checkedDesigns++;
         }
         Assert.True(checkedDesigns > 100, $"only {checkedDesigns} designs checked");
-
-        DesignJudgement? Judge(int[] choice)
-        {
-            try
-            {
-                return DesignJudge.Judge(requirement, variant.DesignOf(choice));
-            }
-            catch (DesignValidationException)
-            {
-                return null;
-            }
-        }
     }
 
     /// <summary>
@@ -244,10 +222,7 @@ public class RelaxationSoundnessTests
     [InlineData(true)]
     public void An_oscillator_short_of_current_stays_short_with_a_smaller_integrator_input(bool singleSupply)
     {
-        var parts = E24Between(2, 5).Select((v, i) => TestStock.Resistor($"R{i:000}", v, 0.01m)).ToList();
-        parts.AddRange(Enumerable.Range(-9, 3).Select(e => TestStock.Capacitor($"C{e}", Math.Pow(10, e), 0.05m)));
-        parts.AddRange(PotValues.Take(4).Select((v, i) => TestStock.Pot($"P{i}", v, 0.4m)));
-        var stock = new Stock(parts, [TestStock.OpAmp("TL074", TestStock.QuadJfet, 0.35m)]);
+        var stock = SampledStock(2, 5, 4);
         var requirement = TestStock.PwmAt20Kilohertz(TopologyKind.ThreeStage) with
         {
             Supply = singleSupply ? Supply.SingleRail(24) : Supply.Symmetric(12),
@@ -260,8 +235,8 @@ public class RelaxationSoundnessTests
         var failing = 0;
         for (var sample = 0; sample < 400 && failing < 40; sample++)
         {
-            var choice = variant.Problem.Slots.Select(slot => random.Next(slot.Options.Count)).ToArray();
-            if (Judge(choice) is not { } judgement || !judgement.FailedChecks.Contains("output current (oscillator)"))
+            var choice = RandomChoice(variant, random);
+            if (JudgeOrNull(requirement, variant, choice) is not { } judgement || !judgement.FailedChecks.Contains("output current (oscillator)"))
                 continue;
             failing++;
             var at = Value(choice[intR]);
@@ -272,23 +247,11 @@ public class RelaxationSoundnessTests
                 // The integrator's parts and the divider drawn afresh: only the generator is held.
                 foreach (var role in RedrawnWithTheGenerator)
                     trial[variant.SlotOf(role)] = random.Next(variant.Problem.Slots[variant.SlotOf(role)].Options.Count);
-                if (Judge(trial) is { } other)
+                if (JudgeOrNull(requirement, variant, trial) is { } other)
                     Assert.Contains("output current (oscillator)", other.FailedChecks);
             }
         }
         Assert.True(failing >= 10, $"only {failing} designs short of current sampled");
-
-        DesignJudgement? Judge(int[] choice)
-        {
-            try
-            {
-                return DesignJudge.Judge(requirement, variant.DesignOf(choice));
-            }
-            catch (DesignValidationException)
-            {
-                return null;
-            }
-        }
     }
 
     /// <summary>
@@ -480,16 +443,9 @@ public class RelaxationSoundnessTests
             floors += bounds.Count;
             for (var trial = 0; trial < 400; trial++)
             {
-                var choice = variant.Problem.Slots.Select(s => random.Next(s.Options.Count)).ToArray();
-                DesignJudgement judgement;
-                try
-                {
-                    judgement = DesignJudge.Judge(requirement, variant.DesignOf(choice));
-                }
-                catch (DesignValidationException)
-                {
+                var choice = RandomChoice(variant, random);
+                if (JudgeOrNull(requirement, variant, choice) is not { } judgement)
                     continue;
-                }
                 var waveform = judgement.Evaluation.Figure(FigureNames.Frequency) is { } f && double.IsFinite(f);
                 if (!waveform || judgement.FailedChecks.Any(c => c.StartsWith("output current", StringComparison.Ordinal)))
                     continue;
@@ -545,5 +501,34 @@ public class RelaxationSoundnessTests
             }
         }
         Assert.True(compared > 500, $"only {compared} designs compared");
+    }
+
+    /// <summary>
+    /// A stockroom to sample designs from: E24 resistors over whole decades, 1 nF, 10 nF and 100 nF C0G, the
+    /// first <paramref name="pots"/> potentiometer values and one quad JFET op-amp.
+    /// </summary>
+    private static Stock SampledStock(int fromDecade, int toDecade, int pots)
+    {
+        var parts = E24Between(fromDecade, toDecade).Select((v, i) => TestStock.Resistor($"R{i:000}", v, 0.01m)).ToList();
+        parts.AddRange(Enumerable.Range(-9, 3).Select(e => TestStock.Capacitor($"C{e}", Math.Pow(10, e), 0.05m)));
+        parts.AddRange(PotValues.Take(pots).Select((v, i) => TestStock.Pot($"P{i}", v, 0.4m)));
+        return new Stock(parts, [TestStock.OpAmp("TL074", TestStock.QuadJfet, 0.35m)]);
+    }
+
+    /// <summary>Every slot of the variant filled with a random option.</summary>
+    private static int[] RandomChoice(SearchVariant variant, Random random) =>
+        variant.Problem.Slots.Select(slot => random.Next(slot.Options.Count)).ToArray();
+
+    /// <summary>The engine's verdict on a design of the variant; null when the engine refuses it as a design.</summary>
+    private static DesignJudgement? JudgeOrNull(SearchRequirement requirement, SearchVariant variant, int[] choice)
+    {
+        try
+        {
+            return DesignJudge.Judge(requirement, variant.DesignOf(choice));
+        }
+        catch (DesignValidationException)
+        {
+            return null;
+        }
     }
 }
