@@ -5,7 +5,8 @@ namespace PartsOpt.Planning;
 
 /// <summary>What one solve of the line-selection model gave.</summary>
 /// <param name="Status">CP-SAT's status.</param>
-/// <param name="Chosen">Per requirement, the chosen column (null for a requirement without columns).</param>
+/// <param name="Chosen">Per requirement, the chosen column (null for a requirement without columns, or one that took
+/// its stand-in).</param>
 /// <param name="Lines">Line indices the plan holds, ascending.</param>
 /// <param name="Scale">Integer objective units per unit of currency.</param>
 /// <param name="Rounded">True when some yearly cost had more decimals than the scale keeps (rounded in the model).</param>
@@ -13,7 +14,38 @@ internal sealed record LineSelection(CpSolverStatus Status, IReadOnlyList<Design
 {
     /// <summary>True when a plan was found (optimal or not).</summary>
     public bool Found => Status is CpSolverStatus.Optimal or CpSolverStatus.Feasible;
+
+    /// <summary>Per requirement, true when the solution took its stand-in rather than a column (empty without stand-ins).</summary>
+    public IReadOnlyList<bool> TookStandIn { get; init; } = [];
+
+    /// <summary>Every line the solution holds, needed or not (a superset of <see cref="Lines"/>).</summary>
+    public IReadOnlyList<int> Held { get; init; } = [];
+
+    /// <summary>The objective of the solution, in currency (exact unless <see cref="Rounded"/>).</summary>
+    public decimal Objective { get; init; }
+
+    /// <summary>
+    /// No solution of the model costs less than this (exact unless <see cref="Rounded"/>): CP-SAT's bound, or
+    /// the cutoff it was asked to beat when it proved nothing does (status infeasible); null when unknown.
+    /// </summary>
+    public decimal? Bound { get; init; }
 }
+
+/// <summary>
+/// Every design of one requirement that is not a column of the model, as one column of the model
+/// (docs/stocking-plans.md, "proof"): it costs at least <paramref name="PerBoard"/> and needs no line of its
+/// own, except as its cuts say.
+/// </summary>
+/// <param name="PerBoard">No design left out costs less per board (the pool's floor).</param>
+/// <param name="Cuts">What searches on smaller stocks proved about the designs left out.</param>
+internal sealed record StandIn(decimal PerBoard, IReadOnlyList<StandInCut> Cuts);
+
+/// <summary>
+/// A search of the requirement on the lines <paramref name="Within"/> listed its designs, and each became a
+/// column: a design left out that needs no line outside <paramref name="Within"/> costs at least
+/// <paramref name="PerBoard"/> per board, or there is none (null).
+/// </summary>
+internal sealed record StandInCut(IReadOnlyList<int> Within, decimal? PerBoard);
 
 /// <summary>
 /// The master model of the stocking plan (docs/stocking-plans.md): a bool per line (held), a bool per
@@ -23,6 +55,13 @@ internal sealed record LineSelection(CpSolverStatus Status, IReadOnlyList<Design
 /// </summary>
 internal static class LineSelectionModel
 {
+    /// <summary>
+    /// CP-SAT workers. Eight, on any machine: the portfolio then runs its LP-heavy and core-based workers
+    /// beside the default one, and proving the bound's model took a third to half the time of two workers on
+    /// the stocking-plan benchmark's two-core machine (docs/benchmarks.md).
+    /// </summary>
+    public const int Workers = 8;
+
     /// <summary>Largest scale tried for an exact integer objective; past it costs are rounded to 1e-6.</summary>
     public const long MaxScale = 1_000_000;
 
@@ -34,10 +73,25 @@ internal static class LineSelectionModel
         bool keepExisting,
         TimeSpan timeLimit,
         int seed,
-        CancellationToken cancellation)
+        CancellationToken cancellation,
+        IReadOnlyList<StandIn?>? standIns = null,
+        IReadOnlyCollection<int>? hint = null,
+        decimal? below = null)
     {
+        var forced = keepExisting ? lines.ExistingLines.ToHashSet() : [];
+        columns = columns.Select(list => Undominated(list, forced)).ToList();
+        // A column dearer a year than another column of the same requirement plus the holding of every line of
+        // that one not kept anyway is never in an optimal plan (swapping it for the other saves money), nor is a
+        // stand-in dearer than that (docs/stocking-plans.md, "columns the model leaves out").
+        var caps = columns.Select((list, r) => list.Count == 0 ? decimal.MaxValue
+            : list.Min(c => unitsPerYear[r] * c.PerBoard + holdingCostPerLine * c.Lines.Count(l => !forced.Contains(l)))).ToList();
+        columns = columns.Select((list, r) => (IReadOnlyList<DesignColumn>)list.Where(c => unitsPerYear[r] * c.PerBoard <= caps[r]).ToList()).ToList();
+        if (standIns is not null)
+            standIns = standIns.Select((s, r) => s is not null && unitsPerYear[r] * s.PerBoard <= caps[r] ? s : null).ToList();
         var yearly = columns.Select((list, r) => list.Select(c => unitsPerYear[r] * c.PerBoard).ToList()).ToList();
-        var (scale, rounded) = ScaleFor(yearly.SelectMany(y => y).Append(holdingCostPerLine));
+        var standInAmounts = (standIns ?? []).SelectMany((s, r) => s is null ? []
+            : s.Cuts.Where(c => c.PerBoard is not null).Select(c => unitsPerYear[r] * c.PerBoard!.Value).Append(unitsPerYear[r] * s.PerBoard));
+        var (scale, rounded) = ScaleFor(yearly.SelectMany(y => y).Concat(standInAmounts).Append(holdingCostPerLine));
 
         var model = new CpModel();
         var held = Enumerable.Range(0, lines.Count).Select(l => model.NewBoolVar($"held_{l}")).ToArray();
@@ -48,42 +102,130 @@ internal static class LineSelectionModel
             if (keepExisting && lines.Existing[l])
                 model.Add(held[l] == 1);
             objective.AddTerm(held[l], holding);
+            if (hint is not null)
+                model.AddHint(held[l], hint.Contains(l) ? 1 : 0);
         }
         var pick = new BoolVar[columns.Count][];
+        var standIn = new BoolVar?[columns.Count];
         for (var r = 0; r < columns.Count; r++)
         {
             pick[r] = columns[r].Select((_, j) => model.NewBoolVar($"design_{r}_{j}")).ToArray();
             if (pick[r].Length == 0)
                 continue;
-            model.AddExactlyOne(pick[r]);
+            if (standIns is { } s && s[r] is { } stand)
+                standIn[r] = AddStandIn(model, objective, held, stand, unitsPerYear[r], scale, r);
+            model.AddExactlyOne(standIn[r] is { } si ? [.. pick[r], si] : pick[r]);
+            // A design needs its lines, written per line: the designs of r that use line l, together, need it
+            // (Σ_j∋l use[r,j] ≤ held[l]; at most one is taken, and the sum binds the model's linear relaxation
+            // harder than one implication per design).
+            var users = new Dictionary<int, List<BoolVar>>();
             for (var j = 0; j < pick[r].Length; j++)
             {
                 foreach (var line in columns[r][j].Lines)
-                    model.AddImplication(pick[r][j], held[line]);
+                    (users.TryGetValue(line, out var list) ? list : users[line] = []).Add(pick[r][j]);
                 objective.AddTerm(pick[r][j], Scaled(yearly[r][j], scale));
             }
+            foreach (var (line, designs) in users)
+                model.Add(LinearExpr.Sum(designs) <= held[line]);
         }
         model.Minimize(objective);
+        // Asked only for solutions cheaper than a plan already found: proving there is none is far easier for
+        // CP-SAT than proving an optimum, and it is all a proof needs.
+        var cutoff = below is { } limit ? checked((long)decimal.Ceiling(limit * scale)) - 1 : (long?)null;
+        if (cutoff is { } most)
+            model.Add(objective <= most);
 
         var solver = new CpSolver
         {
             StringParameters = string.Create(CultureInfo.InvariantCulture,
-                $"max_time_in_seconds:{Math.Max(timeLimit.TotalSeconds, 0.001):0.###}, num_workers:2, random_seed:{seed}"),
+                $"max_time_in_seconds:{Math.Max(timeLimit.TotalSeconds, 0.001):0.###}, num_workers:{Workers}, random_seed:{seed}"),
         };
         CpSolverStatus status;
         using (cancellation.Register(solver.StopSearch))
             status = solver.Solve(model);
         if (status is not (CpSolverStatus.Optimal or CpSolverStatus.Feasible))
-            return new LineSelection(status, columns.Select(_ => (DesignColumn?)null).ToList(), [], scale, rounded);
+            return new LineSelection(status, columns.Select(_ => (DesignColumn?)null).ToList(), [], scale, rounded)
+            {
+                Bound = status == CpSolverStatus.Infeasible && below is not null ? below : null,
+            };
 
-        var chosen = columns.Select((list, r) => list.Count == 0 ? null
+        var took = standIn.Select(v => v is not null && solver.BooleanValue(v)).ToList();
+        var chosen = columns.Select((list, r) => list.Count == 0 || took[r] ? null
             : list[Array.FindIndex(pick[r], v => solver.BooleanValue(v))]).ToList();
         // A line no chosen design needs is held only when it must be kept: with no holding cost the solver
         // may leave one on at no charge, and the plan does not list it.
         var needed = chosen.Where(c => c is not null).SelectMany(c => c!.Lines)
             .Concat(keepExisting ? lines.ExistingLines : []).ToHashSet();
         var planLines = Enumerable.Range(0, lines.Count).Where(l => solver.BooleanValue(held[l]) && needed.Contains(l)).ToList();
-        return new LineSelection(status, chosen, planLines, scale, rounded);
+        return new LineSelection(status, chosen, planLines, scale, rounded)
+        {
+            TookStandIn = standIns is null ? [] : took,
+            Held = Enumerable.Range(0, lines.Count).Where(l => solver.BooleanValue(held[l])).ToList(),
+            Objective = (decimal)(long)Math.Round(solver.ObjectiveValue) / scale,
+            Bound = (decimal)(long)Math.Ceiling(solver.BestObjectiveBound - 1e-6) / scale,
+        };
+    }
+
+    /// <summary>
+    /// The stand-in's bool: it costs units × its floor, and each cut whose lines hold every held line raises
+    /// it to the cut's cost (or rules it out when the cut found no design).
+    /// </summary>
+    private static BoolVar AddStandIn(CpModel model, LinearExprBuilder objective, BoolVar[] held, StandIn stand, int units, long scale, int r)
+    {
+        var taken = model.NewBoolVar($"stand_in_{r}");
+        var floor = Scaled(units * stand.PerBoard, scale);
+        objective.AddTerm(taken, floor);
+        var raises = stand.Cuts.Where(c => c.PerBoard is { } p && p > stand.PerBoard).ToList();
+        var extra = raises.Count == 0 ? null
+            : model.NewIntVar(0, raises.Max(c => Scaled(units * c.PerBoard!.Value, scale)) - floor, $"stand_in_raise_{r}");
+        if (extra is not null)
+            objective.AddTerm(extra, 1);
+        foreach (var cut in stand.Cuts)
+        {
+            var within = cut.Within.ToHashSet();
+            var outside = Enumerable.Range(0, held.Length).Where(l => !within.Contains(l)).Select(l => (ILiteral)held[l]).ToList();
+            if (cut.PerBoard is not { } perBoard)
+                model.AddBoolOr([.. outside, taken.Not()]);
+            else if (perBoard > stand.PerBoard)
+                model.Add(extra! >= Scaled(units * perBoard, scale) - floor)
+                    .OnlyEnforceIf([taken, .. outside.Select(l => l.Not())]);
+        }
+        return taken;
+    }
+
+    /// <summary>
+    /// The columns no other column of the same requirement dominates: one needing a subset of its lines (lines
+    /// every plan holds aside) at no higher cost makes it useless to the model (any plan with it costs no less
+    /// with the other). Of equal columns the first stays.
+    /// </summary>
+    internal static IReadOnlyList<DesignColumn> Undominated(IReadOnlyList<DesignColumn> list, IReadOnlySet<int> forced)
+    {
+        var own = list.Select(c => c.Lines.Where(l => !forced.Contains(l)).ToList()).ToList();
+        var masks = own.Select(Mask).ToList();
+        // Cheapest first, then fewest lines: a column can only be dominated by one before it.
+        var order = Enumerable.Range(0, list.Count).OrderBy(j => list[j].PerBoard).ThenBy(j => own[j].Count).ThenBy(j => j).ToList();
+        var kept = new List<int>();
+        foreach (var j in order)
+            if (!kept.Any(k => list[k].PerBoard <= list[j].PerBoard && Within(masks[k], masks[j])))
+                kept.Add(j);
+        kept.Sort();
+        return kept.Count == list.Count ? list : kept.Select(j => list[j]).ToList();
+
+        static ulong[] Mask(List<int> used)
+        {
+            var mask = new ulong[used.Count == 0 ? 1 : used.Max() / 64 + 1];
+            foreach (var l in used)
+                mask[l / 64] |= 1UL << (l % 64);
+            return mask;
+        }
+
+        static bool Within(ulong[] inner, ulong[] outer)
+        {
+            for (var w = 0; w < inner.Length; w++)
+                if ((inner[w] & ~(w < outer.Length ? outer[w] : 0)) != 0)
+                    return false;
+            return true;
+        }
     }
 
     /// <summary>The smallest power of ten (up to <see cref="MaxScale"/>) that makes every amount whole.</summary>

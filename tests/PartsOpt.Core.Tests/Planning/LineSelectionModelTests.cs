@@ -79,4 +79,78 @@ public class LineSelectionModelTests
     [Fact]
     public void AmountsFinerThanAMillionthAreRounded() =>
         Assert.Equal((LineSelectionModel.MaxScale, true), LineSelectionModel.ScaleFor([1m / 3m]));
+
+    /// <summary>
+    /// A's stand-in (every design of A not a column, at least 0.95 per board, no line of its own), holding 10:
+    /// alone it undercuts every column (95 + b1's 25 + 10 = 130 against a1 + b1 = 155).
+    /// </summary>
+    private static LineSelection WithStandIn(params StandInCut[] cuts)
+    {
+        var (lines, columns) = Case(keepExisting: false);
+        return LineSelectionModel.Solve(columns, [100, 50], lines, 10m, false, TimeSpan.FromSeconds(30), 1, default,
+            [new StandIn(0.95m, cuts), null]);
+    }
+
+    [Fact]
+    public void AStandInNeedsNoLineOfItsOwn()
+    {
+        var selection = WithStandIn();
+        Assert.Equal(Google.OrTools.Sat.CpSolverStatus.Optimal, selection.Status);
+        Assert.Equal([true, false], selection.TookStandIn);
+        Assert.Equal(130m, selection.Objective);
+        Assert.Equal(130m, selection.Bound);
+        Assert.Equal(["L3"], Names(selection, false));
+    }
+
+    [Fact]
+    public void ACutWithNoDesignMakesTheStandInHoldALineOutsideIt()
+    {
+        // No design of A outside the columns within {L3}: the stand-in needs some other line held (+10).
+        var selection = WithStandIn(new StandInCut([Index("L3")], null));
+        Assert.Equal([true, false], selection.TookStandIn);
+        Assert.Equal(140m, selection.Objective);
+        Assert.Equal(2, selection.Held.Count);
+        Assert.Equal(["L3"], Names(selection, false)); // the extra line is held for the bound, needed by no design
+    }
+
+    [Fact]
+    public void ACutWithACostRaisesTheStandInWithinItsLines()
+    {
+        // Within {L3} A's left-out designs cost at least 1.02: 102 + 35 = 137, below 95 + 35 + 10 for a line outside.
+        var selection = WithStandIn(new StandInCut([Index("L3")], 1.02m));
+        Assert.Equal([true, false], selection.TookStandIn);
+        Assert.Equal(137m, selection.Objective);
+        Assert.Single(selection.Held);
+    }
+
+    [Theory]
+    [InlineData("131", true)]
+    [InlineData("130.5", true)]
+    [InlineData("130", false)]
+    public void AskedToBeatAPlanTheModelFindsCheaperOrProvesThereIsNone(string below, bool found)
+    {
+        var (lines, columns) = Case(keepExisting: false);
+        var limit = decimal.Parse(below, System.Globalization.CultureInfo.InvariantCulture);
+        var selection = LineSelectionModel.Solve(columns, [100, 50], lines, 10m, false, TimeSpan.FromSeconds(30), 1, default,
+            [new StandIn(0.95m, []), null], below: limit);
+        Assert.Equal(found, selection.Found);
+        Assert.Equal(found ? Google.OrTools.Sat.CpSolverStatus.Optimal : Google.OrTools.Sat.CpSolverStatus.Infeasible, selection.Status);
+        Assert.Equal(found ? 130m : limit, selection.Bound);
+    }
+
+    [Fact]
+    public void ColumnsDominatedByCheaperOnesOnFewerLinesAreLeftOut()
+    {
+        var (lines, _) = Case(keepExisting: true);
+        DesignColumn Column(decimal perBoard, params string[] used) => new(0, null!, used.Select(n => lines.Index[n]).Order().ToList(), perBoard, null);
+        var a = Column(1.00m, "L1", "L2");
+        var b = Column(1.00m, "L1", "L2", "L3"); // a needs fewer lines at the same cost
+        var c = Column(0.90m, "L3");
+        var d = Column(1.05m, "L0", "L1"); // dearer than a, but on other lines
+        var e = Column(1.00m, "L0", "L1"); // L0 is held by every plan: e needs only L1, which dominates a
+        Assert.Equal([a, c, d], LineSelectionModel.Undominated([a, b, c, d], new HashSet<int>()));
+        Assert.Equal([c, e], LineSelectionModel.Undominated([a, b, c, d, e], new HashSet<int> { lines.Index["L0"] }));
+    }
+
+    private static int Index(string name) => Case(keepExisting: false).Lines.Index[name];
 }
