@@ -14,6 +14,7 @@ namespace PartsOpt.Api.Planning;
 /// <c>yearlyHoldingCost</c>: packageCostPerLine × every line of the plan, today's kept lines included.<br/>
 /// <c>today</c>: today's lines unchanged (replenished, none added or dropped).<br/>
 /// <c>changeAgainstToday</c>: yearlyCost − today.yearlyCost; negative saves. Compare only when both meet the same requirements.<br/>
+/// <c>lowerBound</c>: no plan costs less a year; equal to yearlyCost when proved, null when no bound was found. The gap to yearlyCost is what a "bestFound" plan may leave on the table.<br/>
 /// <c>infeasible</c>: requirements no candidate line set meets, with the search's reason.<br/>
 /// <c>cautions</c>: Read before building: the PWM output usually drives a power stage.<br/>
 /// </remarks>
@@ -24,6 +25,7 @@ public sealed record StockingPlanDto(
     decimal YearlyCost,
     decimal YearlyHoldingCost,
     decimal ChangeAgainstToday,
+    decimal? LowerBound,
     IReadOnlyList<PlannedLineDto> Lines,
     IReadOnlyList<string> Added,
     IReadOnlyList<string> Dropped,
@@ -72,6 +74,7 @@ internal static class StockingPlanAnswers
         plan.YearlyCost,
         plan.YearlyHoldingCost,
         plan.ChangeAgainstToday,
+        plan.LowerBound,
         plan.Lines.Select(Line).ToList(),
         plan.Lines.Where(l => !l.Existing).Select(l => l.PartNumber).ToList(),
         plan.Dropped,

@@ -146,6 +146,5 @@ public static class StockingPlanRules
 
     public static StockingOptions ToOptions(StockingPlanInput input) => new(
         PoolSize: input.PoolSize ?? DefaultPoolSize,
-        MaxPoolSize: Math.Max(MaxPoolSize, input.PoolSize ?? DefaultPoolSize),
         SearchTimeLimit: TimeSpan.FromSeconds(input.SearchTimeLimitSeconds ?? DefaultSearchSeconds));
 }

@@ -13,9 +13,6 @@ internal sealed record DesignPool(int Size, SearchOutcome Outcome)
     /// <summary>Proved to hold every feasible design: the search finished and listed fewer than asked.</summary>
     public bool Complete => Outcome.Status == SearchStatus.Optimal && Outcome.Designs.Count < Size;
 
-    /// <summary>The cheapest cost per board over every design (null unless proved).</summary>
-    public decimal? Best => Outcome.Status == SearchStatus.Optimal && Outcome.Designs.Count > 0 ? Outcome.Designs[0].Cost.PerBoard : null;
-
     /// <summary>
     /// Every design left out of the pool costs at least this per board: the search lists the cheapest
     /// <see cref="Size"/> in cost order, so anything missing costs no less than the last of them (null unless

@@ -104,6 +104,10 @@ public sealed record StockingPlan(
     TimeSpan Elapsed,
     IReadOnlyList<string> Notes)
 {
+    /// <summary>No plan costs less a year than this (equal to <see cref="YearlyCost"/> when proved): the best bound the
+    /// line-selection model with stand-ins gave; null when it gave none (see docs/stocking-plans.md, "proof").</summary>
+    public decimal? LowerBound { get; init; }
+
     /// <summary>Cost a year of the plan less that of today's lines (negative: the plan saves); comparable only
     /// when both meet the same requirements.</summary>
     public decimal ChangeAgainstToday => YearlyCost - Today.YearlyCost;

@@ -53,151 +53,163 @@ public static class StockingPlanner
         }
 
         var units = requirements.Select(r => r.UnitsPerYear).ToList();
+        // Proof (docs/stocking-plans.md): the line-selection model over the columns, with a stand-in for the
+        // designs each incomplete pool left out, is a relaxation: no plan costs less than its optimum. Each
+        // round solves it (asking only for something cheaper than the best plan so far), searches every
+        // requirement on the lines its solution holds (the designs found become columns, the best of them a
+        // plan, and a stand-in it took learns a cut), proposes a plan from the columns alone, and grows the
+        // pools whose stand-in it took. The plan is proved when no relaxed plan costs less.
+        var provable = decided && pools.All(p => p is null || p.Complete || p.Floor is not null);
+        var cuts = requirements.Select(_ => new List<StandInCut>()).ToList();
         LineSelection? selection = null;
-        var confirmed = new FoundDesign?[requirements.Count];
+        Candidate? best = null;
+        decimal? bound = null;
         var rounds = 0;
-        var refined = false;
-        var bounded = false;
-        while (columns.Any(c => c.Count > 0) && !cancellation.IsCancellationRequested)
+        var proved = false;
+        var stalled = false;
+        while (columns.Any(c => c.Count > 0) && !cancellation.IsCancellationRequested && rounds < options.MaxRefinementRounds)
         {
             rounds++;
+            var standIns = pools.Select((p, r) => p is { Complete: false, Floor: { } floor } ? new StandIn(floor, cuts[r].ToList()) : null).ToList();
             selection = LineSelectionModel.Solve(columns, units, lines, question.HoldingCostPerLine, question.KeepExisting,
-                options.EffectiveSolverTimeLimit, options.Seed, cancellation);
+                options.EffectiveSolverTimeLimit, options.Seed, cancellation, standIns, below: provable ? best?.YearlyCost : null);
+            if (provable && !selection.Rounded && selection.Bound is { } least)
+                bound = Math.Max(bound ?? least, least);
+            if (proved = Settled())
+                break;
             if (!selection.Found)
+            {
+                stalled = true;
                 break;
-            // Refinement: search again on the chosen lines alone; a design cheaper than the chosen one is a
-            // column the pool missed. Its best design is also the one reported.
-            var stock = lines.StockOf(selection.Lines);
-            var improved = false;
+            }
+            var progress = Refine(selection, standIns);
+            var proposal = LineSelectionModel.Solve(columns, units, lines, question.HoldingCostPerLine, question.KeepExisting,
+                Min(options.EffectiveSolverTimeLimit, ProposalSolveLimit), options.Seed, cancellation, hint: best!.Lines);
+            if (proposal.Found)
+                progress |= Refine(proposal, null);
+            if (proved = Settled())
+                break;
+            // Pools whose stand-in the model took grow: their floor rises and fewer designs are left out.
             for (var r = 0; r < requirements.Count; r++)
+                if (selection.TookStandIn[r] && pools[r] is { } pool && pool.Size < options.MaxPoolSize && pool.Outcome.Status == SearchStatus.Optimal)
+                {
+                    pools[r] = DesignPool.Search(requirements[r].Requirement, all, Math.Min(PoolGrowth * pool.Size, options.MaxPoolSize), searchOptions, cancellation);
+                    progress |= AddColumns(r, pools[r]!.Outcome);
+                    provable &= pools[r]!.Outcome.Status == SearchStatus.Optimal;
+                }
+            if (!progress)
             {
-                if (selection.Chosen[r] is not { } chosen)
-                    continue;
-                var searched = requirements[r].Requirement with { MaxResults = options.RefinementResults };
-                var outcome = DesignSearch.Run(searched, stock, searchOptions, cancellation);
-                confirmed[r] = outcome.Designs.Count > 0 ? outcome.Designs[0] : null;
-                if (confirmed[r] is { } best && best.Cost.PerBoard < chosen.PerBoard)
-                    improved |= AddColumns(r, outcome);
-            }
-            refined = !improved;
-            if (rounds >= options.MaxRefinementRounds)
+                stalled = true;
                 break;
-            if (improved)
-                continue;
-            if (selection.Status != CpSolverStatus.Optimal || selection.Rounded)
-                break;
-            // Proof: a plan that used a design left out of a pool would pay at least that pool's floor for its
-            // requirement and the cheapest design for every other. Pools whose bound does not clear the plan
-            // found are doubled; the plan is proved when every pool is complete or clears it.
-            var found = question.HoldingCostPerLine * selection.Lines.Count
-                + selection.Chosen.Select((c, r) => c is null ? 0 : units[r] * c.PerBoard).Sum();
-            var weak = Enumerable.Range(0, requirements.Count).Where(r => pools[r] is { } pool
-                && !pool.Complete && !(LowerBound(r) >= found)).ToList();
-            // Sharper: the line-selection model itself, where each weak requirement may also take a stand-in
-            // for every design left out of its pool: the pool's floor per board and no line of its own (it
-            // may share any line the plan holds). Its optimum bounds every plan that uses a design left out;
-            // pools whose stand-in that optimum takes are the ones to grow.
-            if (weak.Count > 0 && weak.All(r => pools[r]!.Floor is not null)
-                && LineSelectionModel.Solve(WithStandIns(weak), units, lines, question.HoldingCostPerLine, question.KeepExisting,
-                    options.EffectiveSolverTimeLimit, options.Seed, cancellation) is { Status: CpSolverStatus.Optimal, Rounded: false } bound)
-            {
-                var least = question.HoldingCostPerLine * bound.Lines.Count
-                    + bound.Chosen.Select((c, r) => c is null ? 0 : units[r] * c.PerBoard).Sum();
-                weak = least >= found ? [] : weak.Where(r => bound.Chosen[r] is { Lines.Count: 0 } c && c.PerBoard == pools[r]!.Floor).ToList();
-            }
-            if (weak.Count == 0)
-            {
-                bounded = true;
-                break;
-            }
-            var grow = weak.Where(r => pools[r]!.Size < options.MaxPoolSize && pools[r]!.Outcome.Status == SearchStatus.Optimal).ToList();
-            if (grow.Count == 0)
-                break;
-            foreach (var r in grow)
-            {
-                pools[r] = DesignPool.Search(requirements[r].Requirement, all, Math.Min(2 * pools[r]!.Size, options.MaxPoolSize),
-                    searchOptions, cancellation);
-                AddColumns(r, pools[r]!.Outcome);
             }
         }
 
-        // The columns with a stand-in for the designs each weak requirement's pool left out (see above); the
-        // stand-in carries the pool's last design only as a placeholder, it is never reported.
-        List<IReadOnlyList<DesignColumn>> WithStandIns(IReadOnlyList<int> weak) => columns
-            .Select((list, r) => weak.Contains(r)
-                ? (IReadOnlyList<DesignColumn>)[.. list, new DesignColumn(r, pools[r]!.Outcome.Designs[^1], [], pools[r]!.Floor!.Value, null)]
-                : list)
-            .ToList();
+        // The best plan costs no more than the bound: no plan costs less.
+        bool Settled() => bound is { } least && best is not null && best.YearlyCost <= least;
 
-        decimal? LowerBound(int r)
+        // Searches every requirement on the lines a solution holds: the designs found become columns and the
+        // best of them (or the chosen column, when the search found nothing as cheap) make a plan. A stand-in
+        // the solution took is replaced by the design found there, or by the column that adds the least holding;
+        // and when the search listed every design there up to more than the stand-in's price, that is a cut.
+        bool Refine(LineSelection solution, IReadOnlyList<StandIn?>? standIns)
         {
-            if (pools[r]!.Floor is not { } floor)
-                return null;
-            var forced = question.KeepExisting ? lines.ExistingLines.Count() : 0;
-            var bound = question.HoldingCostPerLine * forced + units[r] * floor;
-            for (var other = 0; other < requirements.Count; other++)
-                if (other != r && pools[other] is { } pool)
+            var held = solution.Held;
+            var stock = lines.StockOf(held);
+            var entries = new Entry?[requirements.Count];
+            var progress = false;
+            for (var r = 0; r < requirements.Count; r++)
+            {
+                var tookStandIn = solution.TookStandIn.Count > 0 && solution.TookStandIn[r];
+                if (solution.Chosen[r] is null && !tookStandIn)
+                    continue;
+                var searched = requirements[r].Requirement with { MaxResults = options.RefinementResults };
+                var outcome = DesignSearch.Run(searched, stock, searchOptions, cancellation);
+                progress |= AddColumns(r, outcome);
+                var top = outcome.Designs.Count > 0 ? Entry.Of(outcome.Designs[0], lines) : null;
+                if (solution.Chosen[r] is { } chosen)
                 {
-                    if (pool.Best is not { } best)
-                        return null;
-                    bound += units[other] * best;
+                    entries[r] = top is not null && top.PerBoard <= chosen.PerBoard ? top : Entry.Of(chosen);
+                    continue;
                 }
-            return bound;
+                entries[r] = Cheapest(r, top, held);
+                if (outcome.Status is not (SearchStatus.Optimal or SearchStatus.Infeasible))
+                    continue;
+                decimal? listed = outcome.Designs.Count < searched.MaxResults ? null : outcome.Designs[searched.MaxResults - 1].Cost.PerBoard;
+                if (listed is null || listed > Price(standIns![r]!, held))
+                {
+                    cuts[r].Add(new StandInCut(held, listed));
+                    progress = true;
+                }
+            }
+            var plan = Candidate.Of(entries, units, lines, question);
+            if (best is null || plan.YearlyCost < best.YearlyCost)
+                best = plan;
+            return progress;
+        }
+
+        // What the stand-in costs on the held lines: its floor, raised by every cut whose lines hold them all.
+        static decimal Price(StandIn standIn, IReadOnlyList<int> held) => standIn.Cuts
+            .Where(c => held.All(c.Within.Contains))
+            .Aggregate(standIn.PerBoard, (price, c) => c.PerBoard is { } p ? Math.Max(price, p) : decimal.MaxValue);
+
+        // A stand-in's place in a plan on the held lines: the design found there, or the column that costs the
+        // year least with the holding of the lines it adds (when none was found, or that costs less).
+        Entry Cheapest(int r, Entry? found, IReadOnlyList<int> held)
+        {
+            decimal Year(decimal perBoard, IEnumerable<int> used) => units[r] * perBoard + question.HoldingCostPerLine * used.Count(l => !held.Contains(l));
+            var column = columns[r].MinBy(c => Year(c.PerBoard, c.Lines))!;
+            return found is not null && Year(found.PerBoard, found.Lines) <= Year(column.PerBoard, column.Lines) ? found : Entry.Of(column);
         }
 
         var today = Today(question, lines, searchOptions, cancellation);
         var counts = requirements.Select((req, r) => (req.Name, Designs: pools[r]?.Outcome.Designs.Count ?? 0)).ToDictionary(x => x.Name, x => x.Designs, StringComparer.Ordinal);
-        if (selection is not { Found: true })
+        if (best is null)
         {
             var reason = selection is null ? "no requirement can be met from the candidate lines" : $"the line-selection model gave no plan ({selection.Status})";
             return new StockingPlan(PlanOptimality.None, reason, [], [], [], unmet, 0, 0, today,
                 selection?.Status.ToString() ?? "NotRun", rounds, counts, clock.Elapsed, notes);
         }
-        if (!refined)
-            notes.Add(Say($"The refinement loop stopped after {rounds} round(s) while still finding cheaper designs: the plan is not proved."));
         foreach (var (pool, r) in pools.Select((p, r) => (p, r)))
             if (pool is { Outcome.Status: not SearchStatus.Optimal })
                 notes.Add($"{requirements[r].Name}: the search of its candidate designs ran out of time; a longer search time limit may find cheaper designs.");
-        if (refined && !bounded)
-            notes.Add("Some requirement has more feasible designs than its pool holds, and a design left out could not be ruled out: the plan is the best found, not proved.");
-        if (selection.Rounded)
+        if (!proved && bound is { } lower)
+            notes.Add(Say($"No plan costs less than {lower} a year (the bound of the model with stand-ins after {rounds} round(s)); this one costs {best.YearlyCost}: it is the best found, not proved."));
+        else if (!proved)
+            notes.Add("Some requirement has more feasible designs than its pool holds and no bound reached the plan: it is the best found, not proved.");
+        if (!proved && stalled)
+            notes.Add("The rounds stopped with nothing new to learn (a solve or a search ran out of time).");
+        else if (!proved && rounds >= options.MaxRefinementRounds)
+            notes.Add(Say($"The rounds ran out ({rounds}) before the bound reached the plan."));
+        if (selection?.Rounded == true)
             notes.Add("Some yearly costs have more than six decimals: the model compared them rounded to 1e-6; the costs reported are exact.");
 
         var designs = new List<PlannedDesign>();
         for (var r = 0; r < requirements.Count; r++)
         {
-            if (selection.Chosen[r] is not { } column)
+            if (best.Entries[r] is not { } entry)
                 continue;
-            // The design the search gives on the plan's lines, when it is as cheap as the chosen column (it is
-            // unless that search ran out of time); otherwise the chosen column's design.
-            var (design, perBoard) = confirmed[r] is { } best && best.Cost.PerBoard <= column.PerBoard
-                ? (best, best.Cost.PerBoard)
-                : (column.Source, column.PerBoard);
-            var used = design == column.Source && confirmed[r] != design
-                ? column.Lines.Select(l => lines.PartNumbers[l]).ToList()
-                : design.Bom.Select(b => lines.PartNumbers[lines.Index[b.PartNumber]]).ToList();
-            designs.Add(new PlannedDesign(requirements[r].Name, requirements[r].UnitsPerYear, design, perBoard,
-                requirements[r].UnitsPerYear * perBoard, used));
-            if (design == column.Source && confirmed[r] != design && column.Decoupler is { } d
-                && !design.Bom.Any(b => string.Equals(b.PartNumber, lines.PartNumbers[d], StringComparison.OrdinalIgnoreCase)))
+            var used = entry.Lines.Select(l => lines.PartNumbers[l]).ToList();
+            designs.Add(new PlannedDesign(requirements[r].Name, requirements[r].UnitsPerYear, entry.Design, entry.PerBoard,
+                requirements[r].UnitsPerYear * entry.PerBoard, used));
+            if (entry.Decoupler is { } d && !entry.Design.Bom.Any(b => string.Equals(b.PartNumber, lines.PartNumbers[d], StringComparison.OrdinalIgnoreCase)))
                 notes.Add($"{requirements[r].Name}: decouple with {lines.PartNumbers[d]} instead of the capacitor the design lists.");
         }
 
         var usedBy = designs.SelectMany(d => d.Lines.Select(l => (Line: lines.Index[l], d.Requirement)))
             .GroupBy(x => x.Line).ToDictionary(g => g.Key, g => g.Select(x => x.Requirement).Distinct().ToList());
-        var held = usedBy.Keys.Concat(question.KeepExisting ? lines.ExistingLines : []).Distinct().Order().ToList();
-        var planned = held.Select(l => Describe(lines, l, usedBy.GetValueOrDefault(l) ?? [])).ToList();
-        var dropped = lines.ExistingLines.Where(l => !held.Contains(l)).Select(l => lines.PartNumbers[l]).ToList();
-        var holding = question.HoldingCostPerLine * held.Count;
-        var yearly = designs.Sum(d => d.YearlyCost) + holding;
+        var planned = best.Lines.Select(l => Describe(lines, l, usedBy.GetValueOrDefault(l) ?? [])).ToList();
+        var dropped = lines.ExistingLines.Where(l => !best.Lines.Contains(l)).Select(l => lines.PartNumbers[l]).ToList();
+        var holding = question.HoldingCostPerLine * best.Lines.Count;
 
-        var proved = decided && refined && bounded;
         var text = proved ? "proved"
             : Say($"best over {(counts.Count == 0 ? 0 : counts.Values.Max())} candidate designs per requirement");
         if (unmet.Count > 0)
             notes.Add($"Not covered by the plan: {string.Join(", ", unmet.Select(u => u.Requirement))} (see their reasons: proved infeasible from every candidate line, or not decided in time).");
         return new StockingPlan(proved ? PlanOptimality.Proved : PlanOptimality.BestFound, text, planned, dropped, designs, unmet,
-            yearly, holding, today, selection.Status.ToString(), rounds, counts, clock.Elapsed, notes);
+            best.YearlyCost, holding, today, proved ? nameof(CpSolverStatus.Optimal) : selection!.Status.ToString(), rounds, counts, clock.Elapsed, notes)
+        {
+            LowerBound = proved ? best.YearlyCost : bound,
+        };
 
         bool AddColumns(int r, SearchOutcome outcome)
         {
@@ -212,6 +224,43 @@ public static class StockingPlanner
             return added;
         }
     }
+
+    /// <summary>
+    /// How one requirement is met in a plan: the design, its cost per board, the lines it uses, and the
+    /// decoupler of a column whose design lists another.
+    /// </summary>
+    private sealed record Entry(FoundDesign Design, decimal PerBoard, IReadOnlyList<int> Lines, int? Decoupler)
+    {
+        /// <summary>A design the search found on the plan's lines: its BOM is what it uses.</summary>
+        public static Entry Of(FoundDesign design, PlanLines lines) =>
+            new(design, design.Cost.PerBoard, design.Bom.Select(b => lines.Index[b.PartNumber]).Distinct().Order().ToList(), null);
+
+        /// <summary>A column: its design with the column's decoupler, at the column's cost.</summary>
+        public static Entry Of(DesignColumn column) => new(column.Source, column.PerBoard, column.Lines, column.Decoupler);
+    }
+
+    /// <summary>A plan: an entry per requirement met, the lines held (today's too when kept) and its yearly cost.</summary>
+    private sealed record Candidate(IReadOnlyList<Entry?> Entries, IReadOnlyList<int> Lines, decimal YearlyCost)
+    {
+        public static Candidate Of(Entry?[] entries, List<int> units, PlanLines lines, StockingQuestion question)
+        {
+            var held = entries.Where(e => e is not null).SelectMany(e => e!.Lines)
+                .Concat(question.KeepExisting ? lines.ExistingLines : []).Distinct().Order().ToList();
+            var yearly = question.HoldingCostPerLine * held.Count + entries.Select((e, r) => e is null ? 0 : units[r] * e.PerBoard).Sum();
+            return new Candidate(entries, held, yearly);
+        }
+    }
+
+    /// <summary>
+    /// Wall time of the model over the columns alone, which only proposes plans (the proof rests on the model
+    /// with stand-ins); it starts from the best plan so far.
+    /// </summary>
+    private static readonly TimeSpan ProposalSolveLimit = TimeSpan.FromSeconds(1);
+
+    /// <summary>A pool whose stand-in the model takes is searched again this many times as large.</summary>
+    private const int PoolGrowth = 4;
+
+    private static TimeSpan Min(TimeSpan a, TimeSpan b) => a < b ? a : b;
 
     /// <summary>Today's lines unchanged: every requirement searched on them (replenished, none added or dropped).</summary>
     private static TodayStock Today(StockingQuestion question, PlanLines lines, SearchOptions options, CancellationToken cancellation)

@@ -28,16 +28,16 @@ public sealed record StockingQuestion(
 /// <summary>How hard the planner works.</summary>
 /// <param name="PoolSize">Designs first asked of each requirement's search over the whole candidate stock (default 40):
 /// its pool of candidate designs. A pool is complete when the search proves it holds every feasible design.</param>
-/// <param name="MaxPoolSize">The pool of a requirement is doubled, up to this size (default 320), while a design left
-/// out of it could still make a cheaper plan (see docs/stocking-plans.md, "proof").</param>
+/// <param name="MaxPoolSize">The pool of a requirement whose stand-in the bound's model takes is doubled, up to this
+/// size (default 1280; see docs/stocking-plans.md, "proof").</param>
 /// <param name="SearchTimeLimit">Wall time of one design search (default 30 s).</param>
 /// <param name="SolverTimeLimit">Wall time of one solve of the line-selection model (default 30 s).</param>
-/// <param name="MaxRefinementRounds">Most rounds of the refinement loop (default 20).</param>
-/// <param name="RefinementResults">Designs asked of each search restricted to the chosen lines (default 10).</param>
+/// <param name="MaxRefinementRounds">Most rounds of the model and its searches on the lines it holds (default 20).</param>
+/// <param name="RefinementResults">Designs asked of each search on the lines a round holds (default 10).</param>
 /// <param name="Seed">CP-SAT random seed (default 1).</param>
 public sealed record StockingOptions(
     int PoolSize = 40,
-    int MaxPoolSize = 320,
+    int MaxPoolSize = 1280,
     TimeSpan? SearchTimeLimit = null,
     TimeSpan? SolverTimeLimit = null,
     int MaxRefinementRounds = 20,

@@ -6,19 +6,25 @@ namespace PartsOpt.Tests.Planning;
 public class StockingPlannerHonestyTests
 {
     [Fact]
-    public void APoolTooSmallToRuleOutTheRestIsTheBestFoundNotProved()
+    public void APlanCutShortIsTheBestFoundAndSaysHowFarTheBoundGot()
     {
         var question = PlanningPortfolios.Question(16, keepExisting: false) with { HoldingCostPerLine = 10m };
         var proved = StockingPlanner.Plan(question);
-        // One design per requirement and no room to grow: with holding above 0, a plan pays for its lines, so
-        // the floor bound (the one listed design's cost, and no holding) cannot reach the plan found.
-        var small = StockingPlanner.Plan(question, new StockingOptions(PoolSize: 1, MaxPoolSize: 1));
+        // One design per requirement, no room to grow and one round: the bound's model then takes stand-ins that
+        // need no line, while any real plan pays for its lines (holding above 0), so the bound stays below.
+        var small = StockingPlanner.Plan(question, new StockingOptions(PoolSize: 1, MaxPoolSize: 1, MaxRefinementRounds: 1));
 
         Assert.Equal(PlanOptimality.Proved, proved.Optimality);
         Assert.NotEmpty(proved.Designs);
+        Assert.Equal(proved.YearlyCost, proved.LowerBound);
         Assert.Equal(PlanOptimality.BestFound, small.Optimality);
         Assert.Equal("best over 1 candidate designs per requirement", small.OptimalityText);
-        Assert.Contains(small.Notes, n => n.Contains("could not be ruled out", StringComparison.Ordinal));
+        Assert.Contains(small.Notes, n => n.Contains("not proved", StringComparison.Ordinal));
+        Assert.Contains(small.Notes, n => n.Contains("rounds ran out", StringComparison.Ordinal));
+        // The bound is one: no higher than the proved optimum, which is no higher than the plan cut short.
+        Assert.NotNull(small.LowerBound);
+        Assert.True(small.LowerBound < small.YearlyCost, $"bound {small.LowerBound}, plan {small.YearlyCost}");
+        Assert.True(small.LowerBound <= proved.YearlyCost, $"bound {small.LowerBound} above the proved {proved.YearlyCost}");
         Assert.True(small.YearlyCost >= proved.YearlyCost, $"{small.YearlyCost} below the proved {proved.YearlyCost}");
         StockingPlannerExactnessTests.CheckConsistent(question, small);
     }
