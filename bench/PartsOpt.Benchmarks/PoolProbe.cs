@@ -31,7 +31,8 @@ public static class PoolProbe
                 var clock = Stopwatch.StartNew();
                 var outcome = DesignSearch.Run(item.Requirement with { MaxResults = size }, all, new SearchOptions(limit));
                 Console.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                    $"{item.Name} (pool {size}): {outcome.Status} in {clock.Elapsed.TotalMilliseconds:F0} ms, {outcome.Designs.Count} designs, {outcome.Solves} judged"));
+                    $"{item.Name} ({item.UnitsPerYear} a year, pool {size}): {outcome.Status} in {clock.Elapsed.TotalMilliseconds:F0} ms, {outcome.Designs.Count} designs, {outcome.Solves} judged; " +
+                    $"per board (designs, distinct line sets): {string.Join(", ", outcome.Designs.GroupBy(d => d.Cost.PerBoard).Take(4).Select(g => $"{g.Key} ({g.Count()}, {g.Select(d => string.Join(" ", d.Bom.Select(b => b.PartNumber).Order())).Distinct().Count()})"))}"));
                 if (outcome.Designs.Count > 0)
                     continue;
                 foreach (var report in outcome.Topologies)

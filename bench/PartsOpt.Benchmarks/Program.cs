@@ -18,7 +18,7 @@ if (args is ["probe-plan"])
     var clock = System.Diagnostics.Stopwatch.StartNew();
     var plan = PartsOpt.Planning.StockingPlanner.Plan(StockingPlanBenchmarks.Portfolio());
     Console.WriteLine(System.FormattableString.Invariant(
-        $"plan: {plan.OptimalityText}; yearly {plan.YearlyCost}; {plan.Lines.Count} lines; {plan.Unmet.Count} unmet; {plan.Rounds} rounds; {clock.Elapsed.TotalSeconds:F1} s"));
+        $"plan: {plan.OptimalityText}; yearly {plan.YearlyCost}; bound {plan.LowerBound}; {plan.Lines.Count} lines; {plan.Unmet.Count} unmet; {plan.Rounds} rounds; {clock.Elapsed.TotalSeconds:F1} s"));
     foreach (var note in plan.Notes.Take(5))
         Console.WriteLine("  " + note);
     return;
