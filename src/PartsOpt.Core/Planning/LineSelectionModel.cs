@@ -80,14 +80,7 @@ internal static class LineSelectionModel
     {
         var forced = keepExisting ? lines.ExistingLines.ToHashSet() : [];
         columns = columns.Select(list => Undominated(list, forced)).ToList();
-        // A column dearer a year than another column of the same requirement plus the holding of every line of
-        // that one not kept anyway is never in an optimal plan (swapping it for the other saves money), nor is a
-        // stand-in dearer than that (docs/stocking-plans.md, "columns the model leaves out").
-        var caps = columns.Select((list, r) => list.Count == 0 ? decimal.MaxValue
-            : list.Min(c => unitsPerYear[r] * c.PerBoard + holdingCostPerLine * c.Lines.Count(l => !forced.Contains(l)))).ToList();
-        columns = columns.Select((list, r) => (IReadOnlyList<DesignColumn>)list.Where(c => unitsPerYear[r] * c.PerBoard <= caps[r]).ToList()).ToList();
-        if (standIns is not null)
-            standIns = standIns.Select((s, r) => s is not null && unitsPerYear[r] * s.PerBoard <= caps[r] ? s : null).ToList();
+        (columns, standIns) = WithinReach(columns, standIns, unitsPerYear, holdingCostPerLine, forced);
         var yearly = columns.Select((list, r) => list.Select(c => unitsPerYear[r] * c.PerBoard).ToList()).ToList();
         var standInAmounts = (standIns ?? []).SelectMany((s, r) => s is null ? []
             : s.Cuts.Where(c => c.PerBoard is not null).Select(c => unitsPerYear[r] * c.PerBoard!.Value).Append(unitsPerYear[r] * s.PerBoard));
@@ -226,6 +219,22 @@ internal static class LineSelectionModel
                     return false;
             return true;
         }
+    }
+
+    /// <summary>
+    /// The columns and stand-ins worth a place in the model. A column dearer a year than another column of the
+    /// same requirement plus the holding of every line of that one not held anyway is never in an optimal plan
+    /// (swapping it for the other saves money), nor is a stand-in dearer than that (docs/stocking-plans.md).
+    /// </summary>
+    internal static (IReadOnlyList<IReadOnlyList<DesignColumn>> Columns, IReadOnlyList<StandIn?>? StandIns) WithinReach(
+        IReadOnlyList<IReadOnlyList<DesignColumn>> columns, IReadOnlyList<StandIn?>? standIns, IReadOnlyList<int> unitsPerYear,
+        decimal holdingCostPerLine, IReadOnlySet<int> forced)
+    {
+        var caps = columns.Select((list, r) => list.Count == 0 ? decimal.MaxValue
+            : list.Min(c => unitsPerYear[r] * c.PerBoard + holdingCostPerLine * c.Lines.Count(l => !forced.Contains(l)))).ToList();
+        var kept = columns.Select((list, r) => (IReadOnlyList<DesignColumn>)list.Where(c => unitsPerYear[r] * c.PerBoard <= caps[r]).ToList()).ToList();
+        var stands = standIns?.Select((s, r) => s is not null && unitsPerYear[r] * s.PerBoard <= caps[r] ? s : null).ToList();
+        return (kept, stands);
     }
 
     /// <summary>The smallest power of ten (up to <see cref="MaxScale"/>) that makes every amount whole.</summary>

@@ -152,5 +152,19 @@ public class LineSelectionModelTests
         Assert.Equal([c, e], LineSelectionModel.Undominated([a, b, c, d, e], new HashSet<int> { lines.Index["L0"] }));
     }
 
+    [Fact]
+    public void ColumnsAndStandInsDearerThanAnotherColumnWithItsLinesAreLeftOut()
+    {
+        // Holding 10, nothing kept. A: a1 100 + 2 lines = 120 caps it; a2 (110) stays. B: b1 25 + 1 line = 35
+        // caps it; b2 (40) goes, and so does a stand-in at 0.75 (37.5), while one at 0.70 (35) stays.
+        var (_, columns) = Case(keepExisting: false);
+        var (kept, standIns) = LineSelectionModel.WithinReach(columns, [null, new StandIn(0.75m, [])], [100, 50], 10m, new HashSet<int>());
+        Assert.Equal([1.00m, 1.10m], kept[0].Select(c => c.PerBoard));
+        Assert.Equal([0.50m], kept[1].Select(c => c.PerBoard));
+        Assert.Equal([null, null], standIns!);
+        var (_, cheaper) = LineSelectionModel.WithinReach(columns, [null, new StandIn(0.70m, [])], [100, 50], 10m, new HashSet<int>());
+        Assert.NotNull(cheaper![1]);
+    }
+
     private static int Index(string name) => Case(keepExisting: false).Lines.Index[name];
 }
