@@ -49,9 +49,10 @@ internal sealed record StandInCut(IReadOnlyList<int> Within, decimal? PerBoard);
 
 /// <summary>
 /// The master model of the stocking plan (docs/stocking-plans.md): a bool per line (held), a bool per
-/// column (this design meets that requirement), exactly one column per requirement that has any, a column
-/// needs its lines, today's lines held when they must be kept; minimise Σ unitsPerYear × cost per board of
-/// the chosen columns + holding cost × lines held.
+/// column (this design meets that requirement), exactly one column (or the requirement's stand-in, when
+/// given) per requirement that has any, a column needs its lines, today's lines held when they must be kept;
+/// minimise Σ unitsPerYear × cost per board of the chosen columns (and stand-ins) + holding cost × lines
+/// held, below a given plan's cost when asked.
 /// </summary>
 internal static class LineSelectionModel
 {

@@ -175,7 +175,7 @@ public static class StockingPlanner
         if (!proved && bound is { } lower)
             notes.Add(Say($"No plan costs less than {lower} a year (the bound of the model with stand-ins after {rounds} round(s)); this one costs {best.YearlyCost}: it is the best found, not proved."));
         else if (!proved)
-            notes.Add("Some requirement has more feasible designs than its pool holds and no bound reached the plan: it is the best found, not proved.");
+            notes.Add("No bound was found (a pool search or a solve ran out of time, or a requirement was not decided): the plan is the best found, not proved.");
         if (!proved && stalled)
             notes.Add("The rounds stopped with nothing new to learn (a solve or a search ran out of time).");
         else if (!proved && rounds >= options.MaxRefinementRounds)

@@ -55,6 +55,7 @@ public sealed class StockingPlanAnswerTests(StockFactory factory) : IClassFixtur
         Assert.Equal(5.00m * 7, plan.Today.YearlyCost); // holding of today's seven lines, nothing buildable
         Assert.Equal(plan.YearlyCost - plan.Today.YearlyCost, plan.ChangeAgainstToday);
         Assert.True(plan.Optimality == "proved", $"{plan.OptimalityText}: {string.Join(" | ", plan.Notes)} {string.Join(",", plan.CandidateDesigns)}");
+        Assert.Equal(plan.YearlyCost, plan.LowerBound); // proved: no plan costs less (docs/stocking-plans.md)
         Assert.Equal(Common.Cautions.PowerStage, plan.Cautions);
         // A plan is an answer, not a record: nothing written.
         Assert.Equal(before, await PlanningStock.RowsAsync(factory.Services));
