@@ -80,7 +80,7 @@ internal static class LineSelectionModel
         decimal? below = null)
     {
         var forced = keepExisting ? lines.ExistingLines.ToHashSet() : [];
-        columns = columns.Select(list => Undominated(list, forced)).ToList();
+        columns = columns.Select((list, r) => Undominated(list, forced, unitsPerYear[r], holdingCostPerLine)).ToList();
         (columns, standIns) = WithinReach(columns, standIns, unitsPerYear, holdingCostPerLine, forced);
         var yearly = columns.Select((list, r) => list.Select(c => unitsPerYear[r] * c.PerBoard).ToList()).ToList();
         var standInAmounts = (standIns ?? []).SelectMany((s, r) => s is null ? []
@@ -188,19 +188,21 @@ internal static class LineSelectionModel
     }
 
     /// <summary>
-    /// The columns no other column of the same requirement dominates: one needing a subset of its lines (lines
-    /// every plan holds aside) at no higher cost makes it useless to the model (any plan with it costs no less
-    /// with the other). Of equal columns the first stays.
+    /// The columns no other column of the same requirement dominates. Column k dominates column j when
+    /// units × (cost of j − cost of k) is at least the holding of k's lines that j does not use (lines every
+    /// plan holds aside): in any plan with j, k instead costs no more, whatever else is held. With no lines
+    /// of its own outside j this is "a subset of j's lines at no higher cost"; of equal columns the first stays.
     /// </summary>
-    internal static IReadOnlyList<DesignColumn> Undominated(IReadOnlyList<DesignColumn> list, IReadOnlySet<int> forced)
+    internal static IReadOnlyList<DesignColumn> Undominated(IReadOnlyList<DesignColumn> list, IReadOnlySet<int> forced, int units, decimal holdingCostPerLine)
     {
         var own = list.Select(c => c.Lines.Where(l => !forced.Contains(l)).ToList()).ToList();
         var masks = own.Select(Mask).ToList();
-        // Cheapest first, then fewest lines: a column can only be dominated by one before it.
+        // Cheapest first, then fewest lines: a column can only be dominated by one before it, and dominance
+        // chains (k over j and m over k make m over j), so only the columns kept need be asked.
         var order = Enumerable.Range(0, list.Count).OrderBy(j => list[j].PerBoard).ThenBy(j => own[j].Count).ThenBy(j => j).ToList();
         var kept = new List<int>();
         foreach (var j in order)
-            if (!kept.Any(k => list[k].PerBoard <= list[j].PerBoard && Within(masks[k], masks[j])))
+            if (!kept.Any(k => units * (list[j].PerBoard - list[k].PerBoard) >= holdingCostPerLine * Outside(masks[k], masks[j])))
                 kept.Add(j);
         kept.Sort();
         return kept.Count == list.Count ? list : kept.Select(j => list[j]).ToList();
@@ -213,12 +215,13 @@ internal static class LineSelectionModel
             return mask;
         }
 
-        static bool Within(ulong[] inner, ulong[] outer)
+        // Lines of the first not among the second's.
+        static int Outside(ulong[] inner, ulong[] outer)
         {
+            var count = 0;
             for (var w = 0; w < inner.Length; w++)
-                if ((inner[w] & ~(w < outer.Length ? outer[w] : 0)) != 0)
-                    return false;
-            return true;
+                count += System.Numerics.BitOperations.PopCount(inner[w] & ~(w < outer.Length ? outer[w] : 0));
+            return count;
         }
     }
 

@@ -148,8 +148,26 @@ public class LineSelectionModelTests
         var c = Column(0.90m, "L3");
         var d = Column(1.05m, "L0", "L1"); // dearer than a, but on other lines
         var e = Column(1.00m, "L0", "L1"); // L0 is held by every plan: e needs only L1, which dominates a
-        Assert.Equal([a, c, d], LineSelectionModel.Undominated([a, b, c, d], new HashSet<int>()));
-        Assert.Equal([c, e], LineSelectionModel.Undominated([a, b, c, d, e], new HashSet<int> { lines.Index["L0"] }));
+        // A holding of 1,000 a line for 100 a year: no saving per board pays for a line, only subsets dominate.
+        Assert.Equal([a, c, d], LineSelectionModel.Undominated([a, b, c, d], new HashSet<int>(), 100, 1000m));
+        Assert.Equal([c, e], LineSelectionModel.Undominated([a, b, c, d, e], new HashSet<int> { lines.Index["L0"] }, 100, 1000m));
+    }
+
+    [Fact]
+    public void ColumnsDearerThanAnotherByMoreThanTheHoldingOfItsOtherLinesAreLeftOut()
+    {
+        // 100 a year, holding 10 a line. p (1.00 on L1 L2) instead of another column adds at most the holding
+        // of its lines the other does not use: 10 for L2 beside L1, 20 beside L3 alone.
+        var (lines, _) = Case(keepExisting: false);
+        DesignColumn Column(decimal perBoard, params string[] used) => new(0, null!, used.Select(n => lines.Index[n]).Order().ToList(), perBoard, null);
+        var p = Column(1.00m, "L1", "L2");
+        var q = Column(1.08m, "L1", "L3"); // 8 a year dearer than p, which would add L2 (10): stays
+        var r = Column(1.10m, "L1", "L3"); // 10 a year dearer: p costs no more in any plan with r
+        var s = Column(1.25m, "L3");       // 25 dearer, p would add two lines (20): goes
+        var t = Column(1.15m, "L3");       // 15 dearer: stays (and then s is also 10 dearer than t on the same line)
+        Assert.Equal([p, q, t], LineSelectionModel.Undominated([p, q, r, s, t], new HashSet<int>(), 100, 10m));
+        // With no holding cost only the cheapest column matters.
+        Assert.Equal([p], LineSelectionModel.Undominated([p, q, r, s, t], new HashSet<int>(), 100, 0m));
     }
 
     [Fact]
