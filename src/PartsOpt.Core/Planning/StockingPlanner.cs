@@ -89,9 +89,12 @@ public static class StockingPlanner
                 progress |= Refine(proposal, null);
             if (proved = Settled())
                 break;
-            // Pools whose stand-in the model took grow: their floor rises and fewer designs are left out.
+            // Pools whose stand-in the model took grow: their floor rises and fewer designs are left out. Not
+            // when the stand-in is tied with a column on the lines the solution holds (as cheap, no line more): it
+            // lowered nothing, the same objective is a plan of columns.
+            bool Tied(int r) => columns[r].Any(c => c.PerBoard <= Price(standIns[r]!, selection.Held) && c.Lines.All(selection.Held.Contains));
             for (var r = 0; r < requirements.Count; r++)
-                if (selection.TookStandIn[r] && pools[r] is { } pool && pool.Size < options.MaxPoolSize && pool.Outcome.Status == SearchStatus.Optimal)
+                if (selection.TookStandIn[r] && !Tied(r) && pools[r] is { } pool && pool.Size < options.MaxPoolSize && pool.Outcome.Status == SearchStatus.Optimal)
                 {
                     pools[r] = DesignPool.Search(requirements[r].Requirement, all, Math.Min(PoolGrowth * pool.Size, options.MaxPoolSize), searchOptions, cancellation);
                     progress |= AddColumns(r, pools[r]!.Outcome);
@@ -258,7 +261,7 @@ public static class StockingPlanner
     private static readonly TimeSpan ProposalSolveLimit = TimeSpan.FromSeconds(1);
 
     /// <summary>A pool whose stand-in the model takes is searched again this many times as large.</summary>
-    private const int PoolGrowth = 4;
+    private const int PoolGrowth = 8;
 
     private static TimeSpan Min(TimeSpan a, TimeSpan b) => a < b ? a : b;
 

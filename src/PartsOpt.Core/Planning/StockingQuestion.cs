@@ -28,8 +28,8 @@ public sealed record StockingQuestion(
 /// <summary>How hard the planner works.</summary>
 /// <param name="PoolSize">Designs first asked of each requirement's search over the whole candidate stock (default 40):
 /// its pool of candidate designs. A pool is complete when the search proves it holds every feasible design.</param>
-/// <param name="MaxPoolSize">The pool of a requirement whose stand-in the bound's model takes is doubled, up to this
-/// size (default 1280; see docs/stocking-plans.md, "proof").</param>
+/// <param name="MaxPoolSize">The pool of a requirement whose stand-in the bound's model takes (and is not tied with a
+/// column) is searched again eight times as large, up to this size (default 1280; docs/stocking-plans.md, "the method").</param>
 /// <param name="SearchTimeLimit">Wall time of one design search (default 30 s).</param>
 /// <param name="SolverTimeLimit">Wall time of one solve of the line-selection model (default 30 s).</param>
 /// <param name="MaxRefinementRounds">Most rounds of the model and its searches on the lines it holds (default 20).</param>
