@@ -15,7 +15,7 @@ public static class DesignJudge
     public static DesignJudgement Judge(SearchRequirement requirement, CircuitDesign design)
     {
         ArgumentNullException.ThrowIfNull(requirement);
-        var evaluation = CircuitAnalysis.Analyse(design, dutyCurvePoints: 2);
+        var evaluation = CircuitAnalysis.Analyse(design, dutyCurvePoints: 2, explain: false);
         var missed = new List<MissedTarget>();
         var reasons = new List<string>();
         var margins = new List<double>();

@@ -31,7 +31,7 @@ public enum MissedTarget
 /// The exact verdict on one design: the engine's nominal figures against the requirement's bands and the
 /// engine's failure checks.
 /// </summary>
-/// <param name="Evaluation">The engine's analysis.</param>
+/// <param name="Evaluation">The engine's analysis: figures and checks (the judge leaves notes and designators out).</param>
 /// <param name="Missed">The requirements missed, most local first (frequency before duty); empty when accepted.</param>
 /// <param name="Reasons">Each miss in a designer's words, in the order of <paramref name="Missed"/>.</param>
 /// <param name="FrequencyError">|f − target| / target (infinite when the circuit does not oscillate).</param>

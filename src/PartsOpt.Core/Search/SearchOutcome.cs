@@ -58,7 +58,7 @@ public sealed record BomLine(string PartNumber, IReadOnlyList<string> Uses, int 
 
 /// <summary>A design the search found, with the engine's analysis of it and its bill of materials.</summary>
 /// <param name="Rank">1 for the cheapest.</param>
-/// <param name="Design">The circuit, ready for <see cref="CircuitAnalysis.Analyse"/>.</param>
+/// <param name="Design">The circuit, ready for <see cref="CircuitAnalysis.Analyse(CircuitDesign, int)"/>.</param>
 /// <param name="Evaluation">The engine's analysis (figures, checks, designators, sections).</param>
 /// <param name="RoleParts">Stock part number(s) in each role; two for a series or parallel combination.</param>
 /// <param name="Bom">Bill of materials, decoupling and op-amp packages included.</param>

@@ -13,7 +13,14 @@ public static class CircuitAnalysis
     /// <param name="design">The design to analyse.</param>
     /// <param name="dutyCurvePoints">Points of the duty-versus-setting curve, 2…1001 (default 21).</param>
     /// <exception cref="DesignValidationException">The design cannot be analysed (missing role, bad value…).</exception>
-    public static CircuitEvaluation Analyse(CircuitDesign design, int dutyCurvePoints = 21)
+    public static CircuitEvaluation Analyse(CircuitDesign design, int dutyCurvePoints = 21) => Analyse(design, dutyCurvePoints, explain: true);
+
+    /// <summary>
+    /// As <see cref="Analyse(CircuitDesign, int)"/>; without <paramref name="explain"/> the notes and reference
+    /// designators are left empty and only the checks that fail or warn get reasons (the design search judges
+    /// hundreds of thousands of designs and reads only their figures and the reasons they miss).
+    /// </summary>
+    internal static CircuitEvaluation Analyse(CircuitDesign design, int dutyCurvePoints, bool explain)
     {
         ArgumentNullException.ThrowIfNull(design);
         design.Validate();
@@ -53,11 +60,13 @@ public static class CircuitAnalysis
             cornerHz,
             wave.ReferenceV,
             curve,
-            ReferenceDesignators.ForRoles(design.RequiredRoles()),
+            explain ? ReferenceDesignators.ForRoles(design.RequiredRoles()) : NoDesignators,
             shape.Sections.Sections,
-            Notes(design, in values, in wave),
-            CircuitChecks.All(design, shape, in values, in wave));
+            explain ? Notes(design, in values, in wave) : [],
+            CircuitChecks.All(design, shape, in values, in wave, explain));
     }
+
+    private static readonly IReadOnlyDictionary<string, string> NoDesignators = new Dictionary<string, string>();
 
     private static List<string> Notes(CircuitDesign design, in CircuitValues v, in Waveform w)
     {

@@ -26,20 +26,24 @@ internal static class CircuitChecks
     /// <summary>Frequency at most this share of the gain-bandwidth product (common practice).</summary>
     public const double BandwidthShare = 0.01;
 
-    public static List<CircuitCheck> All(CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w)
+    /// <summary>Every check of the design; without <paramref name="explain"/> only the checks that fail or warn get reasons.</summary>
+    public static List<CircuitCheck> All(CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w, bool explain = true)
     {
-        var checks = new List<CircuitCheck>();
+        var checks = new CheckList(explain);
         SupplyRange(checks, design.Amplifier, "amplifier", design.Supply);
         if (design.Comparator is { } separate)
             SupplyRange(checks, separate, "comparator", design.Supply);
         CanSwitch(checks, design, shape, in v, in w);
-        var canSwitch = checks.FindIndex(c => c.Name == "oscillator can switch");
-        if (!w.Oscillates && checks[canSwitch].Passed)
+        var canSwitch = checks.Items.FindIndex(c => c.Name == "oscillator can switch");
+        if (!w.Oscillates && checks.Items[canSwitch].Passed)
         {
             // Thresholds are reachable, yet no period comes out: the slewing edges eat the ramps, or the
-            // values lie so far out that the closed form overflows.
-            checks[canSwitch] = Check("oscillator can switch", -1, "1",
-                checks[canSwitch].Reason + " Even so, no steady period exists: the slewing edges leave no time for the ramps, or the values are out of range.");
+            // values lie so far out that the closed form overflows. (The check passed, so its reason is
+            // written again for the failure.)
+            var explained = new CheckList(explain: true);
+            CanSwitch(explained, design, shape, in v, in w);
+            checks.Items[canSwitch] = Check("oscillator can switch", -1, "1",
+                explained.Items.First(c => c.Name == "oscillator can switch").Reason + " Even so, no steady period exists: the slewing edges leave no time for the ramps, or the values are out of range.");
         }
 
         if (w.Oscillates)
@@ -52,24 +56,24 @@ internal static class CircuitChecks
         }
 
         PartRatingChecks.Add(checks, design, shape, in v, in w);
-        return checks;
+        return checks.Items;
     }
 
-    private static void SupplyRange(List<CircuitCheck> checks, OpAmpSpec part, string which, Supply supply)
+    private static void SupplyRange(CheckList checks, OpAmpSpec part, string which, Supply supply)
     {
         var span = supply.SpanV;
         var margin = Math.Min(span - part.SupplyMinV, part.SupplyMaxV - span);
-        checks.Add(Check($"supply range ({which})", margin, "V",
-            F($"The supply gives {span:G4} V across the rails; the {which} part is rated for {part.SupplyMinV:G4}…{part.SupplyMaxV:G4} V.")));
+        checks.Add($"supply range ({which})", margin, "V",
+            $"The supply gives {span:G4} V across the rails; the {which} part is rated for {part.SupplyMinV:G4}…{part.SupplyMaxV:G4} V.");
     }
 
-    private static void CanSwitch(List<CircuitCheck> checks, CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w)
+    private static void CanSwitch(CheckList checks, CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w)
     {
         double lp = w.LevelHighRel, lm = w.LevelLowRel;
         if (!(lp > 0 && lm < 0))
         {
-            checks.Add(Check("oscillator can switch", Math.Min(lp, -lm), "V",
-                F($"The op-amp's output swings {lm + w.ReferenceV:G4}…{lp + w.ReferenceV:G4} V, which does not straddle the reference {w.ReferenceV:G4} V.")));
+            checks.Add("oscillator can switch", Math.Min(lp, -lm), "V",
+                $"The op-amp's output swings {lm + w.ReferenceV:G4}…{lp + w.ReferenceV:G4} V, which does not straddle the reference {w.ReferenceV:G4} V.");
             return;
         }
 
@@ -77,26 +81,24 @@ internal static class CircuitChecks
         {
             var k = v.SchR1 / v.SchR2;
             var margin = Math.Min(-lm - k * lp, lp + k * lm);
-            checks.Add(Check("oscillator can switch", margin, "V",
-                F($"The Schmitt thresholds {-k * lp:G4} V and {-k * lm:G4} V (sch.r1/sch.r2 = {k:G4}, needs sch.r1 < sch.r2) ") +
-                F($"must lie inside the integrator's swing {lm:G4}…{lp:G4} V about the reference.")));
+            checks.Add("oscillator can switch", margin, "V",
+                $"The Schmitt thresholds {-k * lp:G4} V and {-k * lm:G4} V (sch.r1/sch.r2 = {k:G4}, needs sch.r1 < sch.r2) must lie inside the integrator's swing {lm:G4}…{lp:G4} V about the reference.");
             var hysteresis = k * (lp - lm);
-            checks.Add(Check("hysteresis above offset", hysteresis - HysteresisOffsets * shape.AmpOffsetV, "V",
-                F($"Hysteresis {hysteresis:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V: below that the offset, not the parts, sets the timing (common practice).")));
+            checks.Add("hysteresis above offset", hysteresis - HysteresisOffsets * shape.AmpOffsetV, "V",
+                $"Hysteresis {hysteresis:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V: below that the offset, not the parts, sets the timing (common practice).");
             return;
         }
 
         var beta = v.OscR2 / (v.OscR1 + v.OscR2);
         var inside = (1 - beta) * Math.Min(lp, -lm) - shape.AmpOffsetV;
-        checks.Add(Check("oscillator can switch", inside, "V",
-            F($"The thresholds β·L± ({beta * lm:G4} V, {beta * lp:G4} V about the reference, β = {beta:G4}) must lie inside ") +
-            F($"the output swing {lm:G4}…{lp:G4} V by more than the input offset.")));
+        checks.Add("oscillator can switch", inside, "V",
+            $"The thresholds β·L± ({beta * lm:G4} V, {beta * lp:G4} V about the reference, β = {beta:G4}) must lie inside the output swing {lm:G4}…{lp:G4} V by more than the input offset.");
         var hyst = beta * (lp - lm);
-        checks.Add(Check("hysteresis above offset", hyst - HysteresisOffsets * shape.AmpOffsetV, "V",
-            F($"Hysteresis {hyst:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V: below that the offset, not the parts, sets the timing (common practice).")));
+        checks.Add("hysteresis above offset", hyst - HysteresisOffsets * shape.AmpOffsetV, "V",
+            $"Hysteresis {hyst:G4} V against {HysteresisOffsets} × the input offset {shape.AmpOffsetV:G3} V: below that the offset, not the parts, sets the timing (common practice).");
     }
 
-    private static void CommonMode(List<CircuitCheck> checks, CircuitDesign design, in Waveform w)
+    private static void CommonMode(CheckList checks, CircuitDesign design, in Waveform w)
     {
         var r = w.ReferenceV;
         if (design.Topology == TopologyKind.Loop)
@@ -116,25 +118,25 @@ internal static class CircuitChecks
             InputRange(checks, design, design.Amplifier, "reference buffer", r, r);
     }
 
-    private static void InputRange(List<CircuitCheck> checks, CircuitDesign design, OpAmpSpec part, string section, double lowV, double highV)
+    private static void InputRange(CheckList checks, CircuitDesign design, OpAmpSpec part, string section, double lowV, double highV)
     {
         var floor = design.Supply.NegativeV + part.InputHeadroomLowV;
         var ceiling = design.Supply.PositiveV - part.InputHeadroomHighV;
-        checks.Add(Check($"input common-mode range ({section})", Math.Min(lowV - floor, ceiling - highV), "V",
-            F($"The {section} inputs see {lowV:G4}…{highV:G4} V; the part accepts {floor:G4}…{ceiling:G4} V.")));
+        checks.Add($"input common-mode range ({section})", Math.Min(lowV - floor, ceiling - highV), "V",
+            $"The {section} inputs see {lowV:G4}…{highV:G4} V; the part accepts {floor:G4}…{ceiling:G4} V.");
     }
 
-    private static void Operation(List<CircuitCheck> checks, CircuitDesign design, in CircuitValues v, in Waveform w)
+    private static void Operation(CheckList checks, CircuitDesign design, in CircuitValues v, in Waveform w)
     {
         if (design.Topology != TopologyKind.RcRamp)
         {
             var limit = SlewShare * v.AmpSlewRate;
-            checks.Add(Check("integrator slope below slew rate", 1 - w.IntegratorSlopeMax / limit, "1",
-                F($"The integrator ramps at up to {w.IntegratorSlopeMax:G4} V/s; keep it below {SlewShare:P0} of the slew rate, {limit:G4} V/s (common practice).")));
+            checks.Add("integrator slope below slew rate", 1 - w.IntegratorSlopeMax / limit, "1",
+                $"The integrator ramps at up to {w.IntegratorSlopeMax:G4} V/s; keep it below {SlewShare:P0} of the slew rate, {limit:G4} V/s (common practice).");
             var top = design.Supply.PositiveV - v.AmpHeadroomHigh;
             var bottom = design.Supply.NegativeV + v.AmpHeadroomLow;
-            checks.Add(Check("triangle inside integrator swing", Math.Min(top - w.RampMaxV, w.RampMinV - bottom), "V",
-                F($"The triangle spans {w.RampMinV:G4}…{w.RampMaxV:G4} V; the integrator swings {bottom:G4}…{top:G4} V.")));
+            checks.Add("triangle inside integrator swing", Math.Min(top - w.RampMaxV, w.RampMinV - bottom), "V",
+                $"The triangle spans {w.RampMinV:G4}…{w.RampMaxV:G4} V; the integrator swings {bottom:G4}…{top:G4} V.");
         }
 
         if (design.Topology == TopologyKind.ThreeStage)
@@ -142,23 +144,23 @@ internal static class CircuitChecks
             // The shunted integrator amplifies its own input offset by its DC noise gain 1 + Rf/Ri.
             var shift = (1 + v.IntRf / v.IntR) * design.Amplifier.InputOffsetV;
             var allowed = OffsetShiftShare * (w.RampMaxRel - w.RampMinRel);
-            checks.Add(Check("integrator offset shift", 1 - shift / allowed, "1",
-                F($"The integrator's input offset, times its DC noise gain 1 + Rf/Ri, may shift the triangle by {shift:G4} V; keep it below {OffsetShiftShare:P0} of the peak-to-peak, {allowed:G4} V (common practice)."),
-                CheckSeverity.Warning));
+            checks.Add("integrator offset shift", 1 - shift / allowed, "1",
+                $"The integrator's input offset, times its DC noise gain 1 + Rf/Ri, may shift the triangle by {shift:G4} V; keep it below {OffsetShiftShare:P0} of the peak-to-peak, {allowed:G4} V (common practice).",
+                CheckSeverity.Warning);
         }
 
         var frequency = 1 / w.PeriodS;
         var bandwidth = BandwidthShare * design.Amplifier.GainBandwidthHz;
-        checks.Add(Check("frequency well below gain-bandwidth", 1 - frequency / bandwidth, "1",
-            F($"{frequency:G4} Hz against {BandwidthShare:P0} of the gain-bandwidth product, {bandwidth:G4} Hz (common practice)."),
-            CheckSeverity.Warning));
+        checks.Add("frequency well below gain-bandwidth", 1 - frequency / bandwidth, "1",
+            $"{frequency:G4} Hz against {BandwidthShare:P0} of the gain-bandwidth product, {bandwidth:G4} Hz (common practice).",
+            CheckSeverity.Warning);
 
         double low = w.ThresholdMinV, high = w.ThresholdMaxV, rampLow = w.RampMinV, rampHigh = w.RampMaxV;
-        checks.Add(Check("duty adjustable", Math.Min(high - rampLow, rampHigh - low), "V",
-            F($"The threshold range {low:G4}…{high:G4} V must overlap the ramp {rampLow:G4}…{rampHigh:G4} V, or the output never switches.")));
-        checks.Add(Check("threshold range inside the ramp", Math.Min(low - rampLow, rampHigh - high), "V",
-            F($"Thresholds {low:G4}…{high:G4} V against the ramp {rampLow:G4}…{rampHigh:G4} V: settings beyond the ramp give a dead band at 0 % or 100 %."),
-            CheckSeverity.Warning));
+        checks.Add("duty adjustable", Math.Min(high - rampLow, rampHigh - low), "V",
+            $"The threshold range {low:G4}…{high:G4} V must overlap the ramp {rampLow:G4}…{rampHigh:G4} V, or the output never switches.");
+        checks.Add("threshold range inside the ramp", Math.Min(low - rampLow, rampHigh - high), "V",
+            $"Thresholds {low:G4}…{high:G4} V against the ramp {rampLow:G4}…{rampHigh:G4} V: settings beyond the ramp give a dead band at 0 % or 100 %.",
+            CheckSeverity.Warning);
 
         // Overdrive matters only at an end where the threshold lies inside the ramp (elsewhere the output rests).
         var wanted = OverdriveV + design.ComparatorPart.InputOffsetV;
@@ -168,13 +170,13 @@ internal static class CircuitChecks
         if (high > rampLow && high < rampHigh)
             overdrive = Math.Min(overdrive, rampHigh - high);
         if (double.IsFinite(overdrive))
-            checks.Add(Check("comparator overdrive", overdrive - wanted, "V",
-                F($"At the duty extremes the ramp passes the threshold by {overdrive:G4} V; want {OverdriveV:G2} V plus the input offset (common practice)."),
-                CheckSeverity.Warning));
+            checks.Add("comparator overdrive", overdrive - wanted, "V",
+                $"At the duty extremes the ramp passes the threshold by {overdrive:G4} V; want {OverdriveV:G2} V plus the input offset (common practice).",
+                CheckSeverity.Warning);
 
         var edges = 2 * w.EdgeTimeS;
-        checks.Add(Check("output edges short against the period", 1 - edges / (EdgeShareOfPeriod * w.PeriodS), "1",
-            F($"Rise plus fall {edges:G4} s against {EdgeShareOfPeriod:P0} of the period {w.PeriodS:G4} s (common practice).")));
+        checks.Add("output edges short against the period", 1 - edges / (EdgeShareOfPeriod * w.PeriodS), "1",
+            $"Rise plus fall {edges:G4} s against {EdgeShareOfPeriod:P0} of the period {w.PeriodS:G4} s (common practice).");
 
         var shortest = double.PositiveInfinity;
         foreach (var duty in (ReadOnlySpan<double>)[w.DutyMin, w.DutyMax])
@@ -184,9 +186,9 @@ internal static class CircuitChecks
         }
 
         if (double.IsFinite(shortest))
-            checks.Add(Check("shortest pulse reaches full swing", shortest / edges - 1, "1",
-                F($"The shortest pulse at the duty extremes lasts {shortest:G4} s; it reaches full swing only if longer than rise plus fall, {edges:G4} s."),
-                CheckSeverity.Warning));
+            checks.Add("shortest pulse reaches full swing", shortest / edges - 1, "1",
+                $"The shortest pulse at the duty extremes lasts {shortest:G4} s; it reaches full swing only if longer than rise plus fall, {edges:G4} s.",
+                CheckSeverity.Warning);
     }
 
     /// <summary>Share of the returned load the reference's source resistance may be, at most (common practice).</summary>
@@ -195,25 +197,25 @@ internal static class CircuitChecks
     /// <summary>Bypass time constant wanted, in periods (common practice).</summary>
     public const double BypassPeriods = 10;
 
-    private static void StiffReference(List<CircuitCheck> checks, CircuitDesign design, in CircuitValues v, in Waveform w)
+    private static void StiffReference(CheckList checks, CircuitDesign design, in CircuitValues v, in Waveform w)
     {
         var source = v.RefRtop * v.RefRbottom / (v.RefRtop + v.RefRbottom);
         if (design.Topology != TopologyKind.Loop)
         {
             // The hysteresis divider returns its current to the reference; the loop returns only input currents.
             var load = v.OscR1 + v.OscR2;
-            checks.Add(Check("reference stiff against its load", 1 - source / (ReferenceSourceShare * load), "1",
-                F($"The unbuffered reference's source resistance {source:G4} Ω against {ReferenceSourceShare:P0} of the osc.r1 + osc.r2 load, {load:G4} Ω (common practice)."),
-                CheckSeverity.Warning));
+            checks.Add("reference stiff against its load", 1 - source / (ReferenceSourceShare * load), "1",
+                $"The unbuffered reference's source resistance {source:G4} Ω against {ReferenceSourceShare:P0} of the osc.r1 + osc.r2 load, {load:G4} Ω (common practice).",
+                CheckSeverity.Warning);
         }
 
         var bypass = source * v.RefC;
-        checks.Add(Check("reference bypass", bypass / (BypassPeriods * w.PeriodS) - 1, "1",
-            F($"The bypass time constant {bypass:G4} s against {BypassPeriods} periods, {BypassPeriods * w.PeriodS:G4} s (common practice)."),
-            CheckSeverity.Warning));
+        checks.Add("reference bypass", bypass / (BypassPeriods * w.PeriodS) - 1, "1",
+            $"The bypass time constant {bypass:G4} s against {BypassPeriods} periods, {BypassPeriods * w.PeriodS:G4} s (common practice).",
+            CheckSeverity.Warning);
     }
 
-    private static void OutputCurrents(List<CircuitCheck> checks, CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w)
+    private static void OutputCurrents(CheckList checks, CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w)
     {
         double lp = w.LevelHighRel, lm = w.LevelLowRel, level = Math.Max(lp, -lm);
         switch (design.Topology)
@@ -240,9 +242,9 @@ internal static class CircuitChecks
             OutputCurrent(checks, design.ComparatorPart, "comparator", (shape.PositiveV - w.OutputLowV) / v.CmpPullup);
     }
 
-    private static void OutputCurrent(List<CircuitCheck> checks, OpAmpSpec part, string section, double currentA) =>
-        checks.Add(Check($"output current ({section})", 1 - currentA / part.MaxOutputCurrentA, "1",
-            F($"The {section} output drives up to {currentA * 1e3:G4} mA into its networks; the part delivers {part.MaxOutputCurrentA * 1e3:G4} mA.")));
+    private static void OutputCurrent(CheckList checks, OpAmpSpec part, string section, double currentA) =>
+        checks.Add($"output current ({section})", 1 - currentA / part.MaxOutputCurrentA, "1",
+            $"The {section} output drives up to {currentA * 1e3:G4} mA into its networks; the part delivers {part.MaxOutputCurrentA * 1e3:G4} mA.");
 
     /// <summary>
     /// A check from its margin. Margins are kept finite (±double.MaxValue at worst) so that every result
@@ -255,5 +257,4 @@ internal static class CircuitChecks
         return new(name, margin >= 0, finite, unit, reason, severity);
     }
 
-    internal static string F(FormattableString text) => text.ToString(CultureInfo.InvariantCulture);
 }

@@ -1,3 +1,5 @@
+using System.Collections.ObjectModel;
+
 namespace PartsOpt.Topologies;
 
 /// <summary>
@@ -37,6 +39,17 @@ public sealed record CircuitDesign(
     {
         ArgumentNullException.ThrowIfNull(supply);
         ArgumentNullException.ThrowIfNull(dutyControl);
+        // Four facts decide the list: each combination is built once and shared (the search asks per design).
+        var slot = ((((int)topology * 2) + (supply.IsSingle ? 1 : 0)) * 2 + (dutyControl is PotentiometerDuty ? 1 : 0)) * 2 + (comparatorOpenDrain ? 1 : 0);
+        if (slot < RoleLists.Length)
+            return RoleLists[slot] ??= Build(topology, supply.IsSingle, dutyControl is PotentiometerDuty, comparatorOpenDrain);
+        return Build(topology, supply.IsSingle, dutyControl is PotentiometerDuty, comparatorOpenDrain);
+    }
+
+    private static readonly IReadOnlyList<string>?[] RoleLists = new IReadOnlyList<string>?[Enum.GetValues<TopologyKind>().Length * 8];
+
+    private static ReadOnlyCollection<string> Build(TopologyKind topology, bool singleSupply, bool potentiometerDuty, bool comparatorOpenDrain)
+    {
         var roles = new List<string>(16);
         if (topology is TopologyKind.ThreeStage or TopologyKind.RcRamp)
             roles.AddRange([Topologies.Roles.OscR, Topologies.Roles.OscC, Topologies.Roles.OscR1, Topologies.Roles.OscR2]);
@@ -44,13 +57,13 @@ public sealed record CircuitDesign(
             roles.AddRange([Topologies.Roles.IntR, Topologies.Roles.IntC, Topologies.Roles.IntRf]);
         if (topology is TopologyKind.Loop)
             roles.AddRange([Topologies.Roles.IntR, Topologies.Roles.IntC, Topologies.Roles.SchR1, Topologies.Roles.SchR2]);
-        if (dutyControl is PotentiometerDuty)
+        if (potentiometerDuty)
             roles.AddRange([Topologies.Roles.CmpRa, Topologies.Roles.CmpPot, Topologies.Roles.CmpRb]);
         if (comparatorOpenDrain)
             roles.Add(Topologies.Roles.CmpPullup);
-        if (supply.IsSingle)
+        if (singleSupply)
             roles.AddRange([Topologies.Roles.RefRtop, Topologies.Roles.RefRbottom, Topologies.Roles.RefC]);
-        return roles;
+        return roles.AsReadOnly();
     }
 
     /// <summary>

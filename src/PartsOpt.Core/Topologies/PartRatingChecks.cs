@@ -14,7 +14,7 @@ internal static class PartRatingChecks
     public const double CeramicVoltageDerating = 0.5;
     public const double ElectrolyticVoltageDerating = 0.8;
 
-    public static void Add(List<CircuitCheck> checks, CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w)
+    public static void Add(CheckList checks, CircuitDesign design, CircuitShape shape, in CircuitValues v, in Waveform w)
     {
         foreach (var role in design.RequiredRoles())
         {
@@ -31,29 +31,29 @@ internal static class PartRatingChecks
                 // Peak voltage squared over R: conservative for a part that sees it only part of the time.
                 var watts = volts * volts / part.Value;
                 var limit = PowerDerating * rating;
-                checks.Add(CircuitChecks.Check($"power ({role})", 1 - watts / limit, "1",
-                    CircuitChecks.F($"{role} dissipates up to {watts * 1e3:G4} mW; keep it at {PowerDerating:P0} of its {rating:G3} W rating (common practice).")));
+                checks.Add($"power ({role})", 1 - watts / limit, "1",
+                    $"{role} dissipates up to {watts * 1e3:G4} mW; keep it at {PowerDerating:P0} of its {rating:G3} W rating (common practice).");
             }
         }
     }
 
-    private static void Capacitor(List<CircuitCheck> checks, string role, RolePart part, double volts)
+    private static void Capacitor(CheckList checks, string role, RolePart part, double volts)
     {
         var timing = role is Roles.OscC or Roles.IntC;
         var polarised = part.IsPolarised || part.Dielectric == Dielectric.Electrolytic;
         if (timing && polarised)
-            checks.Add(CircuitChecks.Check($"non-polarised ({role})", -1, "1",
-                $"{role} sees both polarities: a polarised capacitor is reverse-biased for half of every period (common practice)."));
+            checks.Add($"non-polarised ({role})", -1, "1",
+                $"{role} sees both polarities: a polarised capacitor is reverse-biased for half of every period (common practice).");
         if (timing && part.Dielectric is { } dielectric && !DielectricCharacteristics.SuitsTiming(dielectric) && !polarised)
-            checks.Add(CircuitChecks.Check($"timing dielectric ({role})", -1, "1",
+            checks.Add($"timing dielectric ({role})", -1, "1",
                 $"{role} is {dielectric}, a class-2 ceramic: it drifts with temperature, DC bias and age. Prefer C0G or film for timing (common practice).",
-                CheckSeverity.Warning));
+                CheckSeverity.Warning);
         if (part.VoltageRatingV is { } rating && double.IsFinite(volts))
         {
             var derating = polarised ? ElectrolyticVoltageDerating : CeramicVoltageDerating;
             var limit = derating * rating;
-            checks.Add(CircuitChecks.Check($"voltage ({role})", 1 - volts / limit, "1",
-                CircuitChecks.F($"{role} sees up to {volts:G4} V; keep it at {derating:P0} of its {rating:G3} V rating (common practice).")));
+            checks.Add($"voltage ({role})", 1 - volts / limit, "1",
+                $"{role} sees up to {volts:G4} V; keep it at {derating:P0} of its {rating:G3} V rating (common practice).");
         }
     }
 
