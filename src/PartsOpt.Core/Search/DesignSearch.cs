@@ -101,7 +101,7 @@ public static class DesignSearch
                 accepted =>
                 {
                     var rank = new SearchCutoff(accepted.Objective, accepted.Verdict.FrequencyError,
-                        accepted.Verdict.Margin, DesignAssembler.Key(variant, accepted.Choice));
+                        accepted.Verdict.Margin, new DesignKey(variant, accepted.Choice));
                     lock (gate)
                         found.Add((variant, accepted));
                     list.Add(variant.Topology, rank);
@@ -345,12 +345,25 @@ public static class DesignSearch
 /// smaller nominal frequency error, the larger margin, the smaller key. As a cutoff: a design ranked after
 /// it cannot enter the list.
 /// </summary>
-internal readonly record struct SearchCutoff(long Cost, double FrequencyError, double Margin = double.NegativeInfinity, string? Key = null)
+internal readonly record struct SearchCutoff(long Cost, double FrequencyError, double Margin = double.NegativeInfinity, DesignKey? Key = null)
     : IComparable<SearchCutoff>
 {
     public int CompareTo(SearchCutoff other) =>
         Cost != other.Cost ? Cost.CompareTo(other.Cost)
         : FrequencyError != other.FrequencyError ? FrequencyError.CompareTo(other.FrequencyError)
         : Margin != other.Margin ? other.Margin.CompareTo(Margin)
-        : string.CompareOrdinal(Key, other.Key);
+        : string.CompareOrdinal(Key?.Value, other.Key?.Value);
+}
+
+/// <summary>
+/// A design's key (<see cref="DesignAssembler.Key"/>), the last tie-break of its rank, written the first time
+/// a tie asks for it: most designs listed never tie on cost, frequency error and margin.
+/// </summary>
+/// <param name="variant">The design's variant.</param>
+/// <param name="choice">Its option per slot; not changed afterwards.</param>
+internal sealed class DesignKey(SearchVariant variant, int[] choice)
+{
+    private string? value;
+
+    public string Value => value ??= DesignAssembler.Key(variant, choice);
 }

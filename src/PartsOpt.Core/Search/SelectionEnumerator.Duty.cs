@@ -32,7 +32,7 @@ internal sealed partial class SelectionEnumerator
         if (below > 0)
             bound = Math.Min(bound, bottoms[below - 1].Duty - dutyMax);
         return bound < cut.Margin
-            || (bound == cut.Margin && string.CompareOrdinal(DesignAssembler.Key(variant, design), cut.Key) > 0);
+            || (bound == cut.Margin && string.CompareOrdinal(DesignAssembler.Key(variant, design), cut.Key.Value) > 0);
     }
 
     /// <summary>Records a judged leaf's duty at its two thresholds, for its siblings under the same ramp.</summary>

@@ -737,7 +737,7 @@ internal sealed partial class SelectionEnumerator
             return false;
         var marginAtMost = frequencyTolerance - error;
         return marginAtMost < cut.Margin
-            || (marginAtMost == cut.Margin && string.CompareOrdinal(DesignAssembler.Key(variant, design), cut.Key) > 0);
+            || (marginAtMost == cut.Margin && string.CompareOrdinal(DesignAssembler.Key(variant, design), cut.Key.Value) > 0);
     }
 
     private bool Assign(int slot, int o)
