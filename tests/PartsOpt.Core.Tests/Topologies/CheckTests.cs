@@ -15,6 +15,24 @@ public class CheckTests
         Assert.Contains(e.Checks, c => c.Name == "output current (integrator)");
     }
 
+    [Theory]
+    [InlineData(0.5e6)]  // the integrator outruns half the slew rate: a failing check
+    [InlineData(100e6)]
+    public void Judging_without_explanations_gives_the_same_checks_and_the_reasons_of_those_that_miss(double slewRate)
+    {
+        // The design search's analysis writes no reason for a check that passes; everything else is the same.
+        var design = SingleSupply(TestCircuits.ThreeStage(ri: 1e3, ci: 1e-9, amp: TestCircuits.Real(slewRate: slewRate)), 12, 10e3, 10e3);
+        var full = CircuitAnalysis.Analyse(design, 2);
+        var quiet = CircuitAnalysis.Analyse(design, 2, explain: false);
+
+        Assert.Equal(full.Figures, quiet.Figures);
+        Assert.Equal(full.Checks.Select(c => (c.Name, c.Passed, c.Margin, c.Severity)), quiet.Checks.Select(c => (c.Name, c.Passed, c.Margin, c.Severity)));
+        Assert.All(full.Checks.Zip(quiet.Checks), pair => Assert.Equal(pair.First.Passed ? "" : pair.First.Reason, pair.Second.Reason));
+        Assert.All(full.Checks, c => Assert.NotEqual("", c.Reason));
+        Assert.Contains(full.Checks, c => !c.Passed);
+        Assert.Empty(quiet.Notes);
+    }
+
     [Fact]
     public void Integrator_faster_than_half_the_slew_rate_fails()
     {
