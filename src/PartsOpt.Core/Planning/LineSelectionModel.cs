@@ -25,8 +25,8 @@ internal sealed record LineSelection(CpSolverStatus Status, IReadOnlyList<Design
     public decimal Objective { get; init; }
 
     /// <summary>
-    /// No solution of the model costs less than this (exact unless <see cref="Rounded"/>): CP-SAT's bound, or
-    /// the cutoff it was asked to beat when it proved nothing does (status infeasible); null when unknown.
+    /// No solution of the model costs less than this (exact unless <see cref="Rounded"/>): CP-SAT's bound;
+    /// null when there is none.
     /// </summary>
     public decimal? Bound { get; init; }
 }
@@ -52,7 +52,7 @@ internal sealed record StandInCut(IReadOnlyList<int> Within, decimal? PerBoard);
 /// column (this design meets that requirement), exactly one column (or the requirement's stand-in, when
 /// given) per requirement that has any, a column needs its lines, today's lines held when they must be kept;
 /// minimise Σ unitsPerYear × cost per board of the chosen columns (and stand-ins) + holding cost × lines
-/// held, below a given plan's cost when asked.
+/// held.
 /// </summary>
 internal static class LineSelectionModel
 {
@@ -83,8 +83,7 @@ internal static class LineSelectionModel
         int seed,
         CancellationToken cancellation,
         IReadOnlyList<StandIn?>? standIns = null,
-        IReadOnlyCollection<int>? hint = null,
-        decimal? below = null)
+        IReadOnlyCollection<int>? hint = null)
     {
         var forced = keepExisting ? lines.ExistingLines.ToHashSet() : [];
         columns = columns.Select((list, r) => Undominated(list, forced, unitsPerYear[r], holdingCostPerLine)).ToList();
@@ -129,13 +128,9 @@ internal static class LineSelectionModel
             foreach (var (line, designs) in users)
                 model.Add(LinearExpr.Sum(designs) <= held[line]);
         }
+        // No constraint "cheaper than the best plan so far": written into the model it made CP-SAT's proof on
+        // the benchmark's last model slower, not faster (docs/benchmarks.md); the objective bounds itself.
         model.Minimize(objective);
-        // Asked only for solutions cheaper than a plan already found: proving there is none is far easier for
-        // CP-SAT than proving an optimum, and it is all a proof needs.
-        var cutoff = below is { } limit ? checked((long)decimal.Ceiling(limit * scale)) - 1 : (long?)null;
-        if (cutoff is { } most)
-            model.Add(objective <= most);
-
         var solver = new CpSolver
         {
             StringParameters = string.Create(CultureInfo.InvariantCulture,
@@ -145,10 +140,7 @@ internal static class LineSelectionModel
         using (cancellation.Register(solver.StopSearch))
             status = solver.Solve(model);
         if (status is not (CpSolverStatus.Optimal or CpSolverStatus.Feasible))
-            return new LineSelection(status, columns.Select(_ => (DesignColumn?)null).ToList(), [], scale, rounded)
-            {
-                Bound = status == CpSolverStatus.Infeasible && below is not null ? below : null,
-            };
+            return new LineSelection(status, columns.Select(_ => (DesignColumn?)null).ToList(), [], scale, rounded);
 
         var took = standIn.Select(v => v is not null && solver.BooleanValue(v)).ToList();
         var chosen = columns.Select((list, r) => list.Count == 0 || took[r] ? null

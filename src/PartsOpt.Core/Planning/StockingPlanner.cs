@@ -55,7 +55,7 @@ public static class StockingPlanner
         var units = requirements.Select(r => r.UnitsPerYear).ToList();
         // Proof (docs/stocking-plans.md): the line-selection model over the columns, with a stand-in for the
         // designs each incomplete pool left out, is a relaxation: no plan costs less than its optimum. Each
-        // round solves it (asking only for something cheaper than the best plan so far), searches every
+        // round solves it, searches every
         // requirement on the lines its solution holds (the designs found become columns, the best of them a
         // plan, and a stand-in it took learns a cut), proposes a plan from the columns alone, and grows the
         // pools whose stand-in it took. The plan is proved when no relaxed plan costs less.
@@ -72,7 +72,7 @@ public static class StockingPlanner
             rounds++;
             var standIns = pools.Select((p, r) => p is { Complete: false, Floor: { } floor } ? new StandIn(floor, cuts[r].ToList()) : null).ToList();
             selection = LineSelectionModel.Solve(columns, units, lines, question.HoldingCostPerLine, question.KeepExisting,
-                options.EffectiveSolverTimeLimit, options.Seed, cancellation, standIns, below: provable ? best?.YearlyCost : null);
+                options.EffectiveSolverTimeLimit, options.Seed, cancellation, standIns);
             if (provable && !selection.Rounded && selection.Bound is { } least)
                 bound = Math.Max(bound ?? least, least);
             if (proved = Settled())
@@ -83,6 +83,8 @@ public static class StockingPlanner
                 break;
             }
             var progress = Refine(selection, standIns);
+            if (proved = Settled())
+                break;
             var proposal = LineSelectionModel.Solve(columns, units, lines, question.HoldingCostPerLine, question.KeepExisting,
                 Min(options.EffectiveSolverTimeLimit, ProposalSolveLimit), options.Seed, cancellation, hint: best!.Lines);
             if (proposal.Found)

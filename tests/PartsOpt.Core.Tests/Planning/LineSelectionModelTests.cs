@@ -123,21 +123,6 @@ public class LineSelectionModelTests
         Assert.Single(selection.Held);
     }
 
-    [Theory]
-    [InlineData("131", true)]
-    [InlineData("130.5", true)]
-    [InlineData("130", false)]
-    public void AskedToBeatAPlanTheModelFindsCheaperOrProvesThereIsNone(string below, bool found)
-    {
-        var (lines, columns) = Case(keepExisting: false);
-        var limit = decimal.Parse(below, System.Globalization.CultureInfo.InvariantCulture);
-        var selection = LineSelectionModel.Solve(columns, [100, 50], lines, 10m, false, TimeSpan.FromSeconds(30), 1, default,
-            [new StandIn(0.95m, []), null], below: limit);
-        Assert.Equal(found, selection.Found);
-        Assert.Equal(found ? Google.OrTools.Sat.CpSolverStatus.Optimal : Google.OrTools.Sat.CpSolverStatus.Infeasible, selection.Status);
-        Assert.Equal(found ? 130m : limit, selection.Bound);
-    }
-
     [Fact]
     public void ColumnsDominatedByCheaperOnesOnFewerLinesAreLeftOut()
     {
