@@ -57,8 +57,8 @@ public static class StockingPlanner
         // designs each incomplete pool left out, is a relaxation: no plan costs less than its optimum. Each
         // round solves it, searches every
         // requirement on the lines its solution holds (the designs found become columns, the best of them a
-        // plan, and a stand-in it took learns a cut), proposes a plan from the columns alone, and grows the
-        // pools whose stand-in it took. The plan is proved when no relaxed plan costs less.
+        // plan, and a stand-in it took learns a cut), proposes a plan from the columns alone when the solve ran
+        // out of time, and grows the pools whose stand-in it took. The plan is proved when no relaxed plan costs less.
         var provable = decided && pools.All(p => p is null || p.Complete || p.Floor is not null);
         var cuts = requirements.Select(_ => new List<StandInCut>()).ToList();
         LineSelection? selection = null;
@@ -85,12 +85,18 @@ public static class StockingPlanner
             var progress = Refine(selection, standIns);
             if (proved = Settled())
                 break;
-            var proposal = LineSelectionModel.Solve(columns, units, lines, question.HoldingCostPerLine, question.KeepExisting,
-                Min(options.EffectiveSolverTimeLimit, ProposalSolveLimit), options.Seed, cancellation, hint: best!.Lines);
-            if (proposal.Found)
-                progress |= Refine(proposal, null);
-            if (proved = Settled())
-                break;
+            // When the solve ran out of time its plan may be far from the best there is: a proposal from the
+            // columns alone, starting at the best plan, may find a cheaper one for an answer cut short. (Solved to
+            // the end, its plan is refined already, and the next round's model holds more.)
+            if (selection.Status != Google.OrTools.Sat.CpSolverStatus.Optimal)
+            {
+                var proposal = LineSelectionModel.Solve(columns, units, lines, question.HoldingCostPerLine, question.KeepExisting,
+                    Min(options.EffectiveSolverTimeLimit, ProposalSolveLimit), options.Seed, cancellation, hint: best!.Lines);
+                if (proposal.Found)
+                    progress |= Refine(proposal, null);
+                if (proved = Settled())
+                    break;
+            }
             // Pools whose stand-in the model took grow: their floor rises and fewer designs are left out. Not
             // when the stand-in is tied with a column on the lines the solution holds (as cheap, no line more): it
             // lowered nothing, the same objective is a plan of columns.
