@@ -55,10 +55,10 @@ public static class StockingPlanner
         var units = requirements.Select(r => r.UnitsPerYear).ToList();
         // Proof (docs/stocking-plans.md): the line-selection model over the columns, with a stand-in for the
         // designs each incomplete pool left out, is a relaxation: no plan costs less than its optimum. Each
-        // round solves it, searches every
-        // requirement on the lines its solution holds (the designs found become columns, the best of them a
-        // plan, and a stand-in it took learns a cut), proposes a plan from the columns alone when the solve ran
-        // out of time, and grows the pools whose stand-in it took. The plan is proved when no relaxed plan costs less.
+        // round solves it, searches every requirement on the lines its solution holds (the designs found
+        // become columns, the best of them a plan, and a stand-in it took learns a cut), proposes a plan from
+        // the columns alone when the solve ran out of time, and grows the pools whose stand-in it took. The
+        // plan is proved when no relaxed plan costs less.
         var provable = decided && pools.All(p => p is null || p.Complete || p.Floor is not null);
         var cuts = requirements.Select(_ => new List<StandInCut>()).ToList();
         LineSelection? selection = null;
@@ -88,7 +88,7 @@ public static class StockingPlanner
             // When the solve ran out of time its plan may be far from the best there is: a proposal from the
             // columns alone, starting at the best plan, may find a cheaper one for an answer cut short. (Solved to
             // the end, its plan is refined already, and the next round's model holds more.)
-            if (selection.Status != Google.OrTools.Sat.CpSolverStatus.Optimal)
+            if (selection.Status != CpSolverStatus.Optimal)
             {
                 var proposal = LineSelectionModel.Solve(columns, units, lines, question.HoldingCostPerLine, question.KeepExisting,
                     Min(options.EffectiveSolverTimeLimit, ProposalSolveLimit), options.Seed, cancellation, hint: best!.Lines);

@@ -41,7 +41,7 @@ public sealed record CircuitDesign(
         ArgumentNullException.ThrowIfNull(dutyControl);
         // Four facts decide the list: each combination is built once and shared (the search asks per design).
         var slot = ((((int)topology * 2) + (supply.IsSingle ? 1 : 0)) * 2 + (dutyControl is PotentiometerDuty ? 1 : 0)) * 2 + (comparatorOpenDrain ? 1 : 0);
-        if (slot < RoleLists.Length)
+        if ((uint)slot < (uint)RoleLists.Length)
             return RoleLists[slot] ??= Build(topology, supply.IsSingle, dutyControl is PotentiometerDuty, comparatorOpenDrain);
         return Build(topology, supply.IsSingle, dutyControl is PotentiometerDuty, comparatorOpenDrain);
     }
