@@ -38,7 +38,28 @@ internal sealed record LineSelection(CpSolverStatus Status, IReadOnlyList<Design
 /// </summary>
 /// <param name="PerBoard">No design left out costs less per board (the pool's floor).</param>
 /// <param name="Cuts">What searches on smaller stocks proved about the designs left out.</param>
-internal sealed record StandIn(decimal PerBoard, IReadOnlyList<StandInCut> Cuts);
+internal sealed record StandIn(decimal PerBoard, IReadOnlyList<StandInCut> Cuts)
+{
+    /// <summary>
+    /// What the stand-in costs per board on the <paramref name="held"/> lines: its floor, raised by every cut
+    /// whose lines hold them all (<see cref="decimal.MaxValue"/> where such a cut found no design), as the model
+    /// prices it.
+    /// </summary>
+    public decimal PriceOn(IReadOnlyList<int> held) => Cuts
+        .Where(c => held.All(c.Within.Contains))
+        .Aggregate(PerBoard, (price, c) => c.PerBoard is { } p ? Math.Max(price, p) : decimal.MaxValue);
+
+    /// <summary>
+    /// True when one of <paramref name="columns"/> is as cheap on the <paramref name="held"/> lines and needs no
+    /// line more: a solution taking the stand-in there is matched by a plan of columns, so the stand-in lowered
+    /// nothing (its pool need not grow).
+    /// </summary>
+    public bool TiedOn(IReadOnlyList<DesignColumn> columns, IReadOnlyList<int> held)
+    {
+        var price = PriceOn(held);
+        return columns.Any(c => c.PerBoard <= price && c.Lines.All(held.Contains));
+    }
+}
 
 /// <summary>
 /// A search of the requirement on the lines <paramref name="Within"/> listed its designs, and each became a

@@ -98,11 +98,9 @@ public static class StockingPlanner
                     break;
             }
             // Pools whose stand-in the model took grow: their floor rises and fewer designs are left out. Not
-            // when the stand-in is tied with a column on the lines the solution holds (as cheap, no line more): it
-            // lowered nothing, the same objective is a plan of columns.
-            bool Tied(int r) => columns[r].Any(c => c.PerBoard <= Price(standIns[r]!, selection.Held) && c.Lines.All(selection.Held.Contains));
+            // when the stand-in is tied with a column on the lines the solution holds: it lowered nothing.
             for (var r = 0; r < requirements.Count; r++)
-                if (selection.TookStandIn[r] && !Tied(r) && pools[r] is { } pool && pool.Size < options.MaxPoolSize && pool.Outcome.Status == SearchStatus.Optimal)
+                if (selection.TookStandIn[r] && !standIns[r]!.TiedOn(columns[r], selection.Held) && pools[r] is { } pool && pool.Size < options.MaxPoolSize && pool.Outcome.Status == SearchStatus.Optimal)
                 {
                     pools[r] = DesignPool.Search(requirements[r].Requirement, all, Math.Min(PoolGrowth * pool.Size, options.MaxPoolSize), searchOptions, cancellation);
                     progress |= AddColumns(r, pools[r]!.Outcome);
@@ -146,7 +144,7 @@ public static class StockingPlanner
                 if (outcome.Status is not (SearchStatus.Optimal or SearchStatus.Infeasible))
                     continue;
                 decimal? listed = outcome.Designs.Count < searched.MaxResults ? null : outcome.Designs[searched.MaxResults - 1].Cost.PerBoard;
-                if (listed is null || listed > Price(standIns![r]!, held))
+                if (listed is null || listed > standIns![r]!.PriceOn(held))
                 {
                     cuts[r].Add(new StandInCut(held, listed));
                     progress = true;
@@ -157,11 +155,6 @@ public static class StockingPlanner
                 best = plan;
             return progress;
         }
-
-        // What the stand-in costs on the held lines: its floor, raised by every cut whose lines hold them all.
-        static decimal Price(StandIn standIn, IReadOnlyList<int> held) => standIn.Cuts
-            .Where(c => held.All(c.Within.Contains))
-            .Aggregate(standIn.PerBoard, (price, c) => c.PerBoard is { } p ? Math.Max(price, p) : decimal.MaxValue);
 
         // A stand-in's place in a plan on the held lines: the design found there, or the column that costs the
         // year least with the holding of the lines it adds (when none was found, or that costs less).

@@ -169,5 +169,22 @@ public class LineSelectionModelTests
         Assert.NotNull(cheaper![1]);
     }
 
+    [Fact]
+    public void AStandInIsTiedWhenAColumnAsCheapNeedsNoLineMoreThanTheSolutionHolds()
+    {
+        // Requirement A's columns, worked by hand: a1 1.00 on {L0, L1}, a2 1.10 on {L0, L2}.
+        var (_, columns) = Case(keepExisting: false);
+        int[] held = [Index("L0"), Index("L1"), Index("L3")];
+        Assert.True(new StandIn(1.00m, []).TiedOn(columns[0], held));             // a1: as cheap, lines held
+        Assert.False(new StandIn(0.99m, []).TiedOn(columns[0], held));            // cheaper than every column
+        Assert.False(new StandIn(1.20m, []).TiedOn(columns[0], [Index("L0"), Index("L3")])); // neither column's lines held
+        // A cut over lines holding all those held raises the price to its own, or rules the stand-in out.
+        var raised = new StandIn(0.90m, [new StandInCut([Index("L0"), Index("L1"), Index("L2"), Index("L3")], 1.05m)]);
+        Assert.Equal(1.05m, raised.PriceOn(held));
+        Assert.True(raised.TiedOn(columns[0], held));
+        Assert.Equal(0.90m, raised.PriceOn([Index("L0"), Index("L4")]));           // L4 is outside the cut
+        Assert.Equal(decimal.MaxValue, new StandIn(0.90m, [new StandInCut(held, null)]).PriceOn(held));
+    }
+
     private static int Index(string name) => Case(keepExisting: false).Lines.Index[name];
 }
