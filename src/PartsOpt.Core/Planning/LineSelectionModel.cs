@@ -85,11 +85,13 @@ internal static class LineSelectionModel
 
     /// <summary>
     /// The workers of every other solve, the bound's above all: two tree searches on the linear relaxation,
-    /// one branching on it, one on its reduced costs. On the stocking-plan benchmark's last models (1,500-1,900
-    /// columns) they proved the optimum in 5-15 s where the eight-worker portfolio took 20-35 s on two cores
-    /// (docs/benchmarks.md): the proof is a tree search, and the other workers only share its cores.
+    /// one branching on it, one on its reduced costs, each a full worker (without num_full_subsolvers CP-SAT
+    /// gives two workers one tree search and one worker of interleaved neighbourhood searches, which stop
+    /// helping once the optimum is found and only the proof is left). On the stocking-plan benchmark's last
+    /// models (1,500-1,900 columns) the two proved the optimum in 3-7 s, where one tree search took 4-15 s and
+    /// the eight-worker portfolio 20-35 s on two cores (docs/benchmarks.md).
     /// </summary>
-    public const string BoundWorkers = "num_workers:2, subsolvers:\"max_lp\", subsolvers:\"reduced_costs\"";
+    public const string BoundWorkers = "num_workers:2, num_full_subsolvers:2, subsolvers:\"max_lp\", subsolvers:\"reduced_costs\"";
 
     /// <summary>Largest scale tried for an exact integer objective; past it costs are rounded to 1e-6.</summary>
     public const long MaxScale = 1_000_000;
