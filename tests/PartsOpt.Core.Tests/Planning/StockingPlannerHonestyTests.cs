@@ -29,6 +29,23 @@ public class StockingPlannerHonestyTests
         StockingPlannerExactnessTests.CheckConsistent(question, small);
     }
 
+    /// <summary>
+    /// With every pool complete the first round's model is the whole problem: its solution, searched again on
+    /// the lines it holds, is a plan no dearer than the model's optimum, so the round ends proved there. (It has
+    /// nothing left to learn: had it gone on, it would have stopped as stalled, unproved.)
+    /// </summary>
+    [Fact]
+    public void WithCompletePoolsTheFirstRoundProvesThePlan()
+    {
+        var question = PlanningPortfolios.Question(14, keepExisting: false);
+        var plan = StockingPlanner.Plan(question);
+
+        Assert.All(plan.CandidateDesigns.Values, count => Assert.True(count < new StockingOptions().PoolSize, $"{count} designs: a pool not complete"));
+        Assert.Equal(PlanOptimality.Proved, plan.Optimality);
+        Assert.Equal(1, plan.Rounds);
+        Assert.Equal(plan.YearlyCost, plan.LowerBound);
+    }
+
     [Fact]
     public void RequirementsAndHoldingCostAreChecked()
     {
