@@ -16,7 +16,12 @@ if (args is ["probe-plan", .. var planArguments])
 {
     // Timed stocking plans of the 20-requirement portfolio in one process (the first cold, the rest warm),
     // each outcome printed (see probe-search): `probe-plan [--repeat N]`.
-    var repeat = planArguments is ["--repeat", var count] ? int.Parse(count, System.Globalization.CultureInfo.InvariantCulture) : 1;
+    var repeat = 1;
+    if (planArguments is not ([] or ["--repeat", _]) || (planArguments is [_, var count] && (!int.TryParse(count, out repeat) || repeat < 1)))
+    {
+        Console.Error.WriteLine("usage: probe-plan [--repeat N], N at least 1");
+        return;
+    }
     var question = StockingPlanBenchmarks.Portfolio();
     for (var run = 0; run < repeat; run++)
     {

@@ -39,7 +39,6 @@ internal sealed class PlanRounds
     private readonly Stock all;
     private bool provable;
 
-    /// <summary>Searches every requirement's pool: its cheapest designs over every line that could be held.</summary>
     public PlanRounds(StockingQuestion question, StockingOptions options, PlanLines lines, SearchOptions searchOptions, CancellationToken cancellation)
     {
         (this.question, this.options, this.lines, this.searchOptions, this.cancellation) = (question, options, lines, searchOptions, cancellation);
@@ -49,20 +48,6 @@ internal sealed class PlanRounds
         cuts = requirements.Select(_ => new List<StandInCut>()).ToArray();
         Pools = new DesignPool?[requirements.Count];
         all = lines.All;
-        var decided = true;
-        for (var r = 0; r < requirements.Count; r++)
-        {
-            var pool = DesignPool.Search(requirements[r].Requirement, all, options.PoolSize, searchOptions, cancellation);
-            if (pool.Outcome.Designs.Count == 0)
-            {
-                unmet.Add(Unmet.Of(requirements[r].Name, pool.Outcome));
-                decided &= pool.Outcome.Status == SearchStatus.Infeasible;
-                continue;
-            }
-            Pools[r] = pool;
-            AddColumns(r, pool.Outcome);
-        }
-        provable = decided && Pools.All(p => p is null || p.Complete || p.Floor is not null);
     }
 
     /// <summary>Per requirement, its pool (null when the search found no design).</summary>
@@ -89,9 +74,13 @@ internal sealed class PlanRounds
     /// <summary>The rounds stopped with nothing new to learn.</summary>
     public bool Stalled { get; private set; }
 
-    /// <summary>Runs rounds until the plan is proved, a round learns nothing, the rounds run out or the planner is cancelled.</summary>
+    /// <summary>
+    /// Searches every requirement's pool, then runs rounds until the plan is proved, a round learns nothing, the
+    /// rounds run out or the planner is cancelled.
+    /// </summary>
     public void Run()
     {
+        SearchPools();
         while (columns.Any(c => c.Count > 0) && !cancellation.IsCancellationRequested && Count < options.MaxRefinementRounds)
         {
             Count++;
@@ -130,6 +119,25 @@ internal sealed class PlanRounds
                 return;
             }
         }
+    }
+
+    /// <summary>Every requirement's pool: its cheapest designs over every line that could be held.</summary>
+    private void SearchPools()
+    {
+        var decided = true;
+        for (var r = 0; r < requirements.Count; r++)
+        {
+            var pool = DesignPool.Search(requirements[r].Requirement, all, options.PoolSize, searchOptions, cancellation);
+            if (pool.Outcome.Designs.Count == 0)
+            {
+                unmet.Add(Unmet.Of(requirements[r].Name, pool.Outcome));
+                decided &= pool.Outcome.Status == SearchStatus.Infeasible;
+                continue;
+            }
+            Pools[r] = pool;
+            AddColumns(r, pool.Outcome);
+        }
+        provable = decided && Pools.All(p => p is null || p.Complete || p.Floor is not null);
     }
 
     // The best plan costs no more than the bound: no plan costs less.
